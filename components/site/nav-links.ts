@@ -1,0 +1,15 @@
+import type { Role } from "@/db/schema/users";
+import { hasRole, type SessionUser } from "@/lib/auth/access";
+
+export type NavLink = { href: string; label: string };
+
+/** The header's links for a person: what every visitor sees, then one link per area they may enter. */
+export function navLinksFor(user: SessionUser | null): NavLink[] {
+  const links: NavLink[] = [{ href: "/workbench", label: "Workbench" }];
+  const areas: { role: Role; link: NavLink }[] = [
+    { role: "seller", link: { href: "/sell", label: "Seller desk" } },
+    { role: "admin", link: { href: "/admin/users", label: "People & roles" } },
+  ];
+  for (const { role, link } of areas) if (hasRole(user, role)) links.push(link);
+  return links;
+}

@@ -1,0 +1,83 @@
+import type { z } from "zod";
+import { EngineeringInputError } from "@/lib/engineering/errors";
+
+/** Field path ("declaration.mainsVrms") → messages; "" holds errors about the body as a whole. */
+export type FieldErrors = Record<string, string[]>;
+
+export interface JsonErrorBody {
+  error: string;
+  message: string;
+  fieldErrors?: FieldErrors;
+}
+
+export function jsonError(status: number, code: string, message: string, fieldErrors?: FieldErrors): Response {
+  const body: JsonErrorBody = fieldErrors ? { error: code, message, fieldErrors } : { error: code, message };
+  return Response.json(body, { status });
+}
+
+export function invalidInput(message: string, fieldErrors: FieldErrors = {}): Response {
+  return jsonError(422, "invalid_input", message, fieldErrors);
+}
+
+export function fieldErrorsFromZod(error: z.ZodError): FieldErrors {
+  const out: FieldErrors = {};
+  for (const issue of error.issues) {
+    const key = issue.path.map(String).join(".");
+    (out[key] ??= []).push(issue.message);
+  }
+  return out;
+}
+
+// Calculator and policy bodies are a few hundred bytes; anything this large is not a form.
+const MAX_BODY_BYTES = 64 * 1024;
+
+export type ParsedBody<T> = { ok: true; data: T } | { ok: false; response: Response };
+
+/** Reads a JSON body and validates it; on failure `response` is the 413/422 to send back. */
+export async function parseJsonBody<S extends z.ZodType>(
+  request: Request,
+  schema: S,
+): Promise<ParsedBody<z.output<S>>> {
+  const text = await request.text();
+  if (new TextEncoder().encode(text).length > MAX_BODY_BYTES) {
+    return { ok: false, response: jsonError(413, "payload_too_large", "The request body is too large.") };
+  }
+  let raw: unknown;
+  try {
+    raw = JSON.parse(text);
+  } catch {
+    return { ok: false, response: invalidInput("The request body is not valid JSON.", { "": ["Send a JSON object."] }) };
+  }
+  const result = schema.safeParse(raw);
+  if (!result.success) {
+    return { ok: false, response: invalidInput("Some inputs are missing or out of range.", fieldErrorsFromZod(result.error)) };
+  }
+  return { ok: true, data: result.data };
+}
+
+/**
+ * The whole life of a public JSON POST: parse, compute, answer. An EngineeringInputError
+ * becomes a 422 on its field (`fieldPrefix` maps it into the body's shape); anything else is
+ * logged and answered with a generic 500.
+ */
+export async function handleJsonPost<S extends z.ZodType>(
+  request: Request,
+  schema: S,
+  /** returns the body to send as JSON, or a ready Response (e.g. a domain 404/422) */
+  compute: (input: z.output<S>) => unknown,
+  options: { route: string; fieldPrefix?: string } = { route: "api" },
+): Promise<Response> {
+  const parsed = await parseJsonBody(request, schema);
+  if (!parsed.ok) return parsed.response;
+  try {
+    const result = compute(parsed.data);
+    return result instanceof Response ? result : Response.json(result);
+  } catch (error) {
+    if (error instanceof EngineeringInputError) {
+      const field = options.fieldPrefix ? `${options.fieldPrefix}${error.field}` : error.field;
+      return invalidInput(error.message, { [field]: [error.message] });
+    }
+    console.error(`[${options.route}] unexpected error`, error);
+    return jsonError(500, "internal_error", "Something went wrong on our side. Please try again.");
+  }
+}

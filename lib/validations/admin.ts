@@ -1,0 +1,14 @@
+import { z } from "zod";
+import { ROLES } from "@/db/schema/users";
+
+/** Roles an admin grants; everyone signed in is a member, so that one is not granted or revoked. */
+export const GRANTABLE_ROLES = ROLES.filter((r) => r !== "member") as Exclude<(typeof ROLES)[number], "member">[];
+
+export const roleChangeSchema = z.object({
+  role: z.enum(GRANTABLE_ROLES as [string, ...string[]], { message: `must be one of ${GRANTABLE_ROLES.join(", ")}` }),
+  grant: z.boolean({ message: "must be true (grant) or false (revoke)" }),
+});
+
+export type RoleChange = z.infer<typeof roleChangeSchema>;
+
+export const userSearchSchema = z.object({ q: z.string().trim().max(200).optional() });

@@ -1,0 +1,7 @@
+/** @type {import('next').NextConfig} */
+const nextConfig = {
+  poweredByHeader: false,
+  serverExternalPackages: ["pg", "pg-boss", "sharp"],
+};
+
+export default nextConfig;

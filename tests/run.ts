@@ -1,0 +1,139 @@
+// `npm test`: one PostgreSQL cluster for the run, then unit + integration tests (while the production
+// build runs beside them), then browser tests in Chromium against that build with the fakes.
+// The last line printed is `N passed, N failed`; any failure gives a non-zero exit.
+import { spawn, spawnSync } from "node:child_process";
+import { existsSync, mkdirSync, readFileSync, rmSync } from "node:fs";
+import path from "node:path";
+import { applyMigrations } from "../db/migrate";
+import { seedDemo } from "../db/seed";
+import { createDatabaseIfMissing, dropDatabase, startDatabase, withDatabase } from "../db/server";
+import { startFakes } from "../fakes/index";
+import { appEnvironment, appUrl, fakeUrls, LOCAL_KEYS, TEST_PORTS } from "../fakes/local-config";
+import { buildApp, startApp } from "../fakes/app-process";
+
+const root = path.resolve(import.meta.dirname, "..");
+const artifacts = path.join(root, "tests", ".artifacts");
+const log = (line: string) => console.log(`[test] ${line}`);
+const TEMPLATE = "fluxyard_template";
+
+type Counts = { passed: number; failed: number; skipped: number };
+
+async function main(): Promise<number> {
+  const started = Date.now();
+  rmSync(artifacts, { recursive: true, force: true });
+  mkdirSync(artifacts, { recursive: true });
+  ensureChromium();
+
+  const server = await startDatabase({ dataDir: path.join(root, ".data", "pg-test"), port: TEST_PORTS.db, database: "postgres", fresh: true, log });
+  const admin = withDatabase(server.url, "postgres");
+  const stops: (() => Promise<void>)[] = [server.stop];
+  const counts: Counts = { passed: 0, failed: 0, skipped: 0 };
+  try {
+    await dropDatabase(admin, TEMPLATE);
+    await createDatabaseIfMissing(admin, TEMPLATE);
+    await applyMigrations(withDatabase(admin, TEMPLATE));
+    const testEnv = { TEST_PG_ADMIN_URL: admin, TEST_PG_TEMPLATE: TEMPLATE };
+
+    log("unit and integration tests, with the production build beside them");
+    const buildLog = path.join(artifacts, "next-build.log");
+    const [fast, build] = await Promise.allSettled([
+      runVitest(["unit", "integration"], testEnv, "vitest-fast.json"),
+      buildApp(log, { logFile: buildLog }),
+    ]);
+    add(counts, fast.status === "fulfilled" ? fast.value : { passed: 0, failed: 1, skipped: 0 });
+    if (build.status === "rejected") {
+      console.error(String(build.reason));
+      counts.failed += 1;
+      return finish(counts, started);
+    }
+
+    const e2eDb = "fluxyard_e2e";
+    await dropDatabase(admin, e2eDb);
+    await createDatabaseIfMissing(admin, e2eDb, TEMPLATE);
+    const e2eUrl = withDatabase(admin, e2eDb);
+    await seedDemo(e2eUrl);
+
+    const ports = TEST_PORTS;
+    const urls = fakeUrls(ports);
+    const fakes = await startFakes({
+      host: "127.0.0.1",
+      mail: { port: ports.mail },
+      payments: {
+        port: ports.payments,
+        publicUrl: urls.payments,
+        webhooks: [{ url: `${appUrl(ports)}/api/webhooks/payments`, secret: LOCAL_KEYS.stripeWebhookSecret }],
+      },
+      uploads: { port: ports.uploads, apiKey: LOCAL_KEYS.uploadsApiKey, appId: LOCAL_KEYS.uploadsAppId, storageDir: path.join(artifacts, "uploads") },
+    });
+    stops.push(fakes.close);
+    const env = appEnvironment({ ports, databaseUrl: e2eUrl, authSecret: "test-secret-for-the-browser-suite-only-0123456789" });
+    const app = await startApp({ port: ports.app, env, log, logFile: path.join(artifacts, "app.log") });
+    stops.push(app.stop);
+
+    log("browser tests in Chromium");
+    add(
+      counts,
+      await runVitest(["e2e"], {
+        ...testEnv,
+        E2E_BASE_URL: appUrl(ports),
+        E2E_DATABASE_URL: e2eUrl,
+        E2E_MAIL_URL: urls.mail,
+        E2E_PAYMENTS_URL: urls.payments,
+        E2E_UPLOADS_URL: urls.uploads,
+        E2E_ARTIFACTS: artifacts,
+      }, "vitest-e2e.json"),
+    );
+  } catch (error) {
+    console.error(error);
+    counts.failed += 1;
+  } finally {
+    for (const stop of stops.reverse()) await stop().catch((e) => console.error(e));
+  }
+  return finish(counts, started);
+}
+
+function add(total: Counts, part: Counts) {
+  total.passed += part.passed;
+  total.failed += part.failed;
+  total.skipped += part.skipped;
+}
+
+function finish(counts: Counts, started: number): number {
+  log(`finished in ${Math.round((Date.now() - started) / 1000)} s`);
+  console.log(`${counts.passed} passed, ${counts.failed} failed${counts.skipped ? `, ${counts.skipped} skipped` : ""}`);
+  return counts.failed > 0 || counts.passed === 0 ? 1 : 0;
+}
+
+async function runVitest(projects: string[], extraEnv: Record<string, string>, reportName: string): Promise<Counts> {
+  const report = path.join(artifacts, reportName);
+  const vitest = path.join(root, "node_modules", "vitest", "vitest.mjs");
+  const args = [vitest, "run", ...projects.flatMap((p) => ["--project", p]), "--passWithNoTests", "--reporter=default", "--reporter=json", `--outputFile.json=${report}`];
+  const child = spawn(process.execPath, args, { cwd: root, stdio: "inherit", env: { ...process.env, ...extraEnv, NODE_ENV: "test" } });
+  const code = await new Promise<number>((resolve) => child.on("exit", (c) => resolve(c ?? 1)));
+  if (!existsSync(report)) return { passed: 0, failed: 1, skipped: 0 };
+  const json = JSON.parse(readFileSync(report, "utf8")) as { numPassedTests: number; numFailedTests: number; numPendingTests: number; numTodoTests: number; numFailedTestSuites: number };
+  const failed = json.numFailedTests + (code !== 0 && json.numFailedTests === 0 ? Math.max(1, json.numFailedTestSuites) : 0);
+  return { passed: json.numPassedTests, failed, skipped: json.numPendingTests + json.numTodoTests };
+}
+
+function ensureChromium() {
+  if (existsSync("/usr/bin/chromium")) return;
+  if (process.getuid?.() !== 0) {
+    throw new Error("Chromium is missing for the browser tests: install Debian's package with `sudo apt-get install -y chromium`");
+  }
+  log("installing Debian's chromium for the browser tests (apt-get) …");
+  const env = { ...process.env, DEBIAN_FRONTEND: "noninteractive" };
+  for (const args of [["update", "-qq"], ["install", "-y", "-qq", "chromium"]]) {
+    const result = spawnSync("apt-get", args, { stdio: "inherit", env });
+    if (result.status !== 0) throw new Error(`apt-get ${args.join(" ")} failed`);
+  }
+}
+
+main().then(
+  (code) => process.exit(code),
+  (error) => {
+    console.error(error);
+    console.log("0 passed, 1 failed");
+    process.exit(1);
+  },
+);

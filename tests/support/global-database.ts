@@ -1,0 +1,25 @@
+// Vitest global setup for the integration project: reuses the cluster that tests/run.ts started,
+// or starts the test cluster itself when vitest is run on its own.
+import path from "node:path";
+import { applyMigrations } from "../../db/migrate";
+import { createDatabaseIfMissing, dropDatabase, startDatabase, withDatabase } from "../../db/server";
+import { TEST_PORTS } from "../../fakes/local-config";
+
+export default async function setup() {
+  if (process.env.TEST_PG_ADMIN_URL) return;
+  const root = path.resolve(import.meta.dirname, "../..");
+  const server = await startDatabase(
+    // Its own cluster, so a vitest run beside `npm test` never shares one with it.
+    { dataDir: path.join(root, ".data", "pg-vitest"), port: TEST_PORTS.db + 10, database: "postgres" },
+  );
+  const admin = withDatabase(server.url, "postgres");
+  const template = "fluxyard_template";
+  await dropDatabase(admin, template);
+  await createDatabaseIfMissing(admin, template);
+  await applyMigrations(withDatabase(admin, template));
+  process.env.TEST_PG_ADMIN_URL = admin;
+  process.env.TEST_PG_TEMPLATE = template;
+  return async () => {
+    await server.stop();
+  };
+}
