@@ -7,7 +7,8 @@ import path from "node:path";
 const root = path.resolve(import.meta.dirname, "..");
 const nextBin = path.join(root, "node_modules", "next", "dist", "bin", "next");
 const SOURCES = ["app", "components", "lib", "db", "emails", "public", "package-lock.json", "next.config.mjs", "tailwind.config.ts", "postcss.config.mjs", "tsconfig.json"];
-const STAMP = path.join(root, ".next", "fluxyard-sources");
+const distDir = () => process.env.FLUXYARD_DIST_DIR || ".next";
+const stampFile = () => path.join(root, distDir(), "fluxyard-sources");
 
 function sourcesFingerprint(): string {
   const hash = createHash("sha256");
@@ -25,7 +26,8 @@ function sourcesFingerprint(): string {
 }
 
 export function buildIsCurrent(): boolean {
-  return existsSync(path.join(root, ".next", "BUILD_ID")) && existsSync(STAMP) && readFileSync(STAMP, "utf8") === sourcesFingerprint();
+  const stamp = stampFile();
+  return existsSync(path.join(root, distDir(), "BUILD_ID")) && existsSync(stamp) && readFileSync(stamp, "utf8") === sourcesFingerprint();
 }
 
 /** `next build` unless the last build is of the same sources. The build needs no database or secrets. */
@@ -50,7 +52,7 @@ export async function buildApp(
     const detail = logFile ? `\n${readFileSync(logFile, "utf8").split("\n").slice(-40).join("\n")}` : "";
     throw new Error(`next build failed${detail}`);
   }
-  writeFileSync(STAMP, fingerprint);
+  writeFileSync(stampFile(), fingerprint);
 }
 
 export type AppProcess = { child: ChildProcess; url: string; stop(): Promise<void> };

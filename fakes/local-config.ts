@@ -10,6 +10,12 @@ export type LocalPorts = { app: number; mail: number; payments: number; uploads:
 export const DEV_PORTS: LocalPorts = { app: 3000, mail: 4010, payments: 4020, uploads: 4030, db: 54329 };
 export const TEST_PORTS: LocalPorts = { app: 3100, mail: 4110, payments: 4120, uploads: 4130, db: 54339 };
 
+/** Ports of a parallel test slot (FLUXYARD_TEST_SLOT=N), so several developers' runs can share a machine. */
+export function testPorts(slot: number): LocalPorts {
+  if (slot === 0) return TEST_PORTS;
+  return { app: 3100 + slot * 10, mail: 4110 + slot * 100, payments: 4120 + slot * 100, uploads: 4130 + slot * 100, db: 54339 + slot * 2 };
+}
+
 export const LOCAL_KEYS = {
   resend: "re_local_fake_key",
   stripeSecret: "sk_test_local_fake_key",

@@ -9,6 +9,7 @@ import { parseEnv } from "../lib/env";
 import { startFakes } from "./index";
 import { appEnvironment, appUrl, DEV_PORTS, fakeUrls, LOCAL_KEYS, localAuthSecret } from "./local-config";
 import { buildApp, startApp, type AppProcess } from "./app-process";
+import { startWorker } from "./worker-process";
 
 const root = path.resolve(import.meta.dirname, "..");
 const dataDir = path.join(root, ".data");
@@ -60,6 +61,8 @@ async function main() {
     stops.push(fakes.close);
 
     await buildApp(log);
+    const worker = await startWorker({ env, log });
+    stops.push(worker.stop);
     const app: AppProcess = await startApp({ port: ports.app, env, log });
     stops.push(app.stop);
     app.child.on("exit", (code) => {

@@ -8,11 +8,21 @@ import { applyMigrations } from "../db/migrate";
 import { seedDemo } from "../db/seed";
 import { createDatabaseIfMissing, dropDatabase, startDatabase, withDatabase } from "../db/server";
 import { startFakes } from "../fakes/index";
-import { appEnvironment, appUrl, fakeUrls, LOCAL_KEYS, TEST_PORTS } from "../fakes/local-config";
+import { appEnvironment, appUrl, fakeUrls, LOCAL_KEYS, testPorts } from "../fakes/local-config";
 import { buildApp, startApp } from "../fakes/app-process";
+import { startWorker } from "../fakes/worker-process";
+
+// `npm test -- --e2e-only tests/e2e/x.test.ts …` skips the unit and integration suites and runs only those
+// browser tests; FLUXYARD_TEST_SLOT=N gives a run its own ports, cluster and build folder.
+const cliArgs = process.argv.slice(2);
+const e2eOnly = cliArgs.includes("--e2e-only");
+const e2eFiles = cliArgs.filter((a) => !a.startsWith("--"));
+const slot = Number(process.env.FLUXYARD_TEST_SLOT ?? 0);
+const ports = testPorts(slot);
+if (slot > 0) process.env.FLUXYARD_DIST_DIR = `.next-slot${slot}`;
 
 const root = path.resolve(import.meta.dirname, "..");
-const artifacts = path.join(root, "tests", ".artifacts");
+const artifacts = path.join(root, "tests", slot > 0 ? `.artifacts-slot${slot}` : ".artifacts");
 const log = (line: string) => console.log(`[test] ${line}`);
 const TEMPLATE = "fluxyard_template";
 
@@ -24,7 +34,7 @@ async function main(): Promise<number> {
   mkdirSync(artifacts, { recursive: true });
   ensureChromium();
 
-  const server = await startDatabase({ dataDir: path.join(root, ".data", "pg-test"), port: TEST_PORTS.db, database: "postgres", fresh: true, log });
+  const server = await startDatabase({ dataDir: path.join(root, ".data", slot > 0 ? `pg-test-slot${slot}` : "pg-test"), port: ports.db, database: "postgres", fresh: true, log });
   const admin = withDatabase(server.url, "postgres");
   const stops: (() => Promise<void>)[] = [server.stop];
   const counts: Counts = { passed: 0, failed: 0, skipped: 0 };
@@ -34,10 +44,10 @@ async function main(): Promise<number> {
     await applyMigrations(withDatabase(admin, TEMPLATE));
     const testEnv = { TEST_PG_ADMIN_URL: admin, TEST_PG_TEMPLATE: TEMPLATE };
 
-    log("unit and integration tests, with the production build beside them");
+    log(e2eOnly ? "building for the browser tests" : "unit and integration tests, with the production build beside them");
     const buildLog = path.join(artifacts, "next-build.log");
     const [fast, build] = await Promise.allSettled([
-      runVitest(["unit", "integration"], testEnv, "vitest-fast.json"),
+      e2eOnly ? Promise.resolve({ passed: 0, failed: 0, skipped: 0 }) : runVitest(["unit", "integration"], testEnv, "vitest-fast.json"),
       buildApp(log, { logFile: buildLog }),
     ]);
     add(counts, fast.status === "fulfilled" ? fast.value : { passed: 0, failed: 1, skipped: 0 });
@@ -53,7 +63,6 @@ async function main(): Promise<number> {
     const e2eUrl = withDatabase(admin, e2eDb);
     await seedDemo(e2eUrl);
 
-    const ports = TEST_PORTS;
     const urls = fakeUrls(ports);
     const fakes = await startFakes({
       host: "127.0.0.1",
@@ -67,6 +76,8 @@ async function main(): Promise<number> {
     });
     stops.push(fakes.close);
     const env = appEnvironment({ ports, databaseUrl: e2eUrl, authSecret: "test-secret-for-the-browser-suite-only-0123456789" });
+    const worker = await startWorker({ env, log, logFile: path.join(artifacts, "worker.log") });
+    stops.push(worker.stop);
     const app = await startApp({ port: ports.app, env, log, logFile: path.join(artifacts, "app.log") });
     stops.push(app.stop);
 
@@ -81,7 +92,7 @@ async function main(): Promise<number> {
         E2E_PAYMENTS_URL: urls.payments,
         E2E_UPLOADS_URL: urls.uploads,
         E2E_ARTIFACTS: artifacts,
-      }, "vitest-e2e.json"),
+      }, "vitest-e2e.json", e2eFiles),
     );
   } catch (error) {
     console.error(error);
@@ -104,10 +115,10 @@ function finish(counts: Counts, started: number): number {
   return counts.failed > 0 || counts.passed === 0 ? 1 : 0;
 }
 
-async function runVitest(projects: string[], extraEnv: Record<string, string>, reportName: string): Promise<Counts> {
+async function runVitest(projects: string[], extraEnv: Record<string, string>, reportName: string, files: string[] = []): Promise<Counts> {
   const report = path.join(artifacts, reportName);
   const vitest = path.join(root, "node_modules", "vitest", "vitest.mjs");
-  const args = [vitest, "run", ...projects.flatMap((p) => ["--project", p]), "--passWithNoTests", "--reporter=default", "--reporter=json", `--outputFile.json=${report}`];
+  const args = [vitest, "run", ...files, ...projects.flatMap((p) => ["--project", p]), "--passWithNoTests", "--reporter=default", "--reporter=json", `--outputFile.json=${report}`];
   const child = spawn(process.execPath, args, { cwd: root, stdio: "inherit", env: { ...process.env, ...extraEnv, NODE_ENV: "test" } });
   const code = await new Promise<number>((resolve) => child.on("exit", (c) => resolve(c ?? 1)));
   if (!existsSync(report)) return { passed: 0, failed: 1, skipped: 0 };

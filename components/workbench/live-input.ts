@@ -15,6 +15,8 @@ export interface NumberSpec {
   toSi: number;
   /** for fields that are not a plain scale of the SI value (a diameter given for an area) */
   fromSi?: (si: number) => number;
+  /** what to say when the text is not a usable value at all */
+  invalidMessage?: string;
 }
 
 export type FieldErrors<K extends string = string> = Partial<Record<K, string[]>>;
@@ -47,6 +49,11 @@ function inFieldUnits(si: number, spec: NumberSpec): string {
 
 type Issue = z.ZodError["issues"][number];
 
+// "Core area Ae" → "core area Ae", but an initial symbol such as "AL" stays as written.
+function lowerFirst(label: string): string {
+  return /^[A-Z][a-z]/.test(label) ? label.charAt(0).toLowerCase() + label.slice(1) : label;
+}
+
 /** A schema issue in the words and units of the field it belongs to. */
 export function issueMessage(issue: Issue, spec: NumberSpec | undefined): string {
   if (spec && issue.code === "too_small") {
@@ -57,7 +64,9 @@ export function issueMessage(issue: Issue, spec: NumberSpec | undefined): string
     const bound = issue.inclusive === false ? "less than" : "at most";
     return `${spec.label} must be ${bound} ${inFieldUnits(Number(issue.maximum), spec)}.`;
   }
-  if (spec && issue.code === "invalid_type") return `Enter ${spec.label.toLowerCase()} as a number.`;
+  const unusable = issue.code === "invalid_type" || issue.code === "invalid_union" || issue.code === "invalid_value" || issue.code === "custom";
+  if (spec?.invalidMessage && unusable) return spec.invalidMessage;
+  if (spec && issue.code === "invalid_type") return `Enter ${lowerFirst(spec.label)} as a number.`;
   return issue.message;
 }
 

@@ -27,8 +27,7 @@ export const MAINS_PRESETS = [
 ] as const;
 export const CUSTOM_PRESET = "custom";
 
-// An invented but plausible inverter bus: 230 V mains, two 330 µF-class parts in parallel
-// rounded to 680 µF, and a 100 kΩ bleeder across them.
+// An invented but plausible example: a 230 V inverter bus of 680 µF with a 100 kΩ bleeder.
 export const MAINS_DEFAULTS: MainsValues = {
   preset: "230",
   mainsVrms: "230",

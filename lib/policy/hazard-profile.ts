@@ -115,7 +115,7 @@ export function hazardProfile(
   };
   const required = new Set(revision.topicRules.filter((rule) => holds[rule.when]).map((rule) => rule.topic));
   // Every listing needs the local-codes topic, whatever a revision's rules say.
-  
+  required.add("codes-and-competence");
 
   return {
     busPeakV,

@@ -87,6 +87,13 @@ describe("suggestBleeder", () => {
     expect(suggestBleeder({ capacitanceF: 1e-3, fromV: 357.8, withinS: exact }).ohms).toBe(47e3);
   });
 
+  it("steps down when an E12 value misses the time by a rounding hair", () => {
+    const exact = 47e3 * 1e-3 * Math.log(357.8 / 60);
+    const b = suggestBleeder({ capacitanceF: 1e-3, fromV: 357.8, withinS: exact * (1 - 1e-13) });
+    expect(b.ohms).toBe(39e3);
+    expect(b.dischargeS).toBeLessThanOrEqual(exact * (1 - 1e-13));
+  });
+
   it("refuses to size a bleeder for a bus already below the target", () => {
     expect(() => suggestBleeder({ capacitanceF: 1e-3, fromV: 48, withinS: 10 })).toThrow(/no bleeder is needed/);
   });

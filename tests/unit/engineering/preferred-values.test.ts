@@ -34,6 +34,8 @@ describe("preferredValue (IEC 60063)", () => {
     expect(preferredValue(50_000, { series: "E24", direction: "nearest" })).toBe(51_000);
     expect(preferredValue(5.2, { series: "E12", direction: "nearest" })).toBe(5.6); // above √(4.7·5.6) ≈ 5.13
     expect(preferredValue(5.1, { series: "E12", direction: "nearest" })).toBe(4.7);
+    // 5.14 is past the geometric mean (5.13) but short of the arithmetic one (5.15)
+    expect(preferredValue(5.14, { series: "E12", direction: "nearest" })).toBe(5.6);
   });
 
   it("crosses decade boundaries: 9.5 rounds up to 10, 0.95 down to 0.82", () => {

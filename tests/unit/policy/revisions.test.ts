@@ -81,6 +81,17 @@ describe("a stricter revision turns a clear sheet incomplete", () => {
     expect(result.findings[0]!.message).toContain("at least 117 s");
   });
 
+  it("keeps the local-codes topic even in a revision whose rules forget it", () => {
+    const r: PolicyRevision = {
+      ...CURRENT_POLICY_REVISION,
+      revision: 2,
+      topicRules: CURRENT_POLICY_REVISION.topicRules.filter((rule) => rule.topic !== "codes-and-competence"),
+    };
+    const result = checkSafetySheet({ declaration: mainsKit, notes: [], revision: r });
+    expect(result.profile.requiredTopics).toContain("codes-and-competence");
+    expect(result.findings.map((f) => f.topic)).toContain("codes-and-competence");
+  });
+
   it("works on a revision that came from JSON, as one stored in the database would", () => {
     const stored = JSON.parse(JSON.stringify({ ...CURRENT_POLICY_REVISION, revision: 3, minWords: 40 }));
     const revision = policyRevisionSchema.parse(stored);
