@@ -26,6 +26,8 @@ export interface ChartMarker {
   value: number;
   label: string;
   tone?: ChartTone;
+  /** which end of a horizontal marker carries its label; "start" (left) by default */
+  labelAt?: "start" | "end";
 }
 
 export interface ChartAxis {
@@ -84,9 +86,9 @@ const SWATCHES: Record<ChartTone, string> = {
   signal: "border-signal-700",
 };
 
-const MARGIN = { top: 16, right: 20, bottom: 52, left: 76 };
-const LABEL_SIZE = 12;
-const LINE_GAP = 15;
+const MARGIN = { top: 16, right: 16, bottom: 54, left: 78 };
+const LABEL_SIZE = 13;
+const LINE_GAP = 16;
 
 function extent(values: number[], axis: ChartAxis): [number, number] {
   const finite = values.filter(Number.isFinite);
@@ -114,8 +116,8 @@ export function LineChart({
   markers = [],
   caption,
   tableRows = 12,
-  width = 640,
-  height = 340,
+  width = 560,
+  height = 330,
   className,
 }: LineChartProps) {
   const id = `chart${useId().replace(/[^A-Za-z0-9_-]/g, "")}`;
@@ -198,7 +200,7 @@ export function LineChart({
           <text x={(left + right) / 2} y={height - 10} textAnchor="middle">
             {x.label}
           </text>
-          <text x={14} y={(top + bottom) / 2} textAnchor="middle" transform={`rotate(-90 14 ${(top + bottom) / 2})`}>
+          <text x={16} y={(top + bottom) / 2} textAnchor="middle" transform={`rotate(-90 16 ${(top + bottom) / 2})`}>
             {y.label}
           </text>
         </g>
@@ -229,9 +231,9 @@ export function LineChart({
                 strokeDasharray="5 4"
               />
               <text
-                x={right - 4}
+                x={marker.labelAt === "end" ? right - 5 : left + 5}
                 y={ly}
-                textAnchor="end"
+                textAnchor={marker.labelAt === "end" ? "end" : "start"}
                 className={cx(TEXT_FILLS[marker.tone ?? "graphite"], "stroke-paper-raised font-semibold")}
                 strokeWidth={4}
                 paintOrder="stroke"

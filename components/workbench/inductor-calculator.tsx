@@ -32,19 +32,17 @@ export function InductorCalculator() {
 
   const inputs = (
     <>
-      <div className="grid gap-4 sm:grid-cols-2">
-        <SelectField label="Inductance from" options={METHOD_OPTIONS} {...bind("method")} />
-        <SelectField
-          label="Core material"
-          options={CORE_MATERIAL_OPTIONS}
-          hint={
-            material
-              ? `Saturates from ${formatSi(material.saturationT.min, "T")}; design to ${formatSi(material.designMaxT, "T")}.`
-              : undefined
-          }
-          {...bind("material")}
-        />
-      </div>
+      <SelectField label="Inductance from" options={METHOD_OPTIONS} {...bind("method")} />
+      <SelectField
+        label="Core material"
+        options={CORE_MATERIAL_OPTIONS}
+        hint={
+          material
+            ? `Saturates from ${formatSi(material.saturationT.min, "T")}; design to ${formatSi(material.designMaxT, "T")}.`
+            : undefined
+        }
+        {...bind("material")}
+      />
       <div className="grid gap-4 sm:grid-cols-2">
         <NumberField label="Turns" {...bind("turns")} error={errors.turns} />
         <NumberField label="Core area Ae" unit="mm²" {...bind("coreAreaM2")} error={errors.coreAreaM2} />
@@ -53,7 +51,7 @@ export function InductorCalculator() {
         <>
           <div className="grid gap-4 sm:grid-cols-2">
             <NumberField label="Total air gap" unit="mm" hint="Both legs of a spacer gap count." {...bind("gapM")} error={errors.gapM} />
-            <NumberField label="Magnetic path length le" unit="mm" {...bind("pathM")} error={errors.pathM} />
+            <NumberField label="Magnetic path length le" unit="mm" hint="From the core's data." {...bind("pathM")} error={errors.pathM} />
           </div>
           <NumberField
             label="Relative permeability of the core"

@@ -66,6 +66,9 @@ export function issueMessage(issue: Issue, spec: NumberSpec | undefined): string
   }
   const unusable = issue.code === "invalid_type" || issue.code === "invalid_union" || issue.code === "invalid_value" || issue.code === "custom";
   if (spec?.invalidMessage && unusable) return spec.invalidMessage;
+  // zod reports a fraction where a whole number is wanted as invalid_type "int"; its own
+  // message ("Turns must be a whole number.") already says it best.
+  if (issue.code === "invalid_type" && issue.expected === "int") return issue.message;
   if (spec && issue.code === "invalid_type") return `Enter ${lowerFirst(spec.label)} as a number.`;
   return issue.message;
 }

@@ -52,6 +52,7 @@ export function MainsCalculator() {
         <NumberField
           label="Mains voltage (RMS)"
           unit="V"
+          hint="Line to line for a three-phase bridge."
           value={values.mainsVrms}
           onChange={(e) => typeSupply("mainsVrms", e.target.value)}
           error={errors.mainsVrms}

@@ -125,7 +125,7 @@ function TransformerResults({ result: r }: { result: TransformerResult }) {
   const formula =
     r.mode === "forward"
       ? "N = V·ton / (ΔB·Ae), from the volt-seconds across the winding."
-      : `N = V / (Kf·f·Ae·B) with Kf = ${r.waveformFactor} for a ${r.mode} wave.`;
+      : `N = V / (Kf·f·Ae·B) with Kf = ${r.waveformFactor?.toFixed(2)} for a ${r.mode} wave.`;
   const fluxName = r.mode === "forward" ? "Flux swing" : "Peak flux density";
   return (
     <ResultList>

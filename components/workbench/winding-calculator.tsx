@@ -38,10 +38,8 @@ export function WindingCalculator() {
 
   const inputs = (
     <>
-      <div className="grid gap-4 sm:grid-cols-2">
-        <SelectField label="Conductor" options={MATERIAL_OPTIONS} {...bind("material")} />
-        <SelectField label="Wire size given as" options={SIZE_OPTIONS} {...bind("sizeBy")} />
-      </div>
+      <SelectField label="Conductor" options={MATERIAL_OPTIONS} {...bind("material")} />
+      <SelectField label="Wire size given as" options={SIZE_OPTIONS} {...bind("sizeBy")} />
       <div className="grid gap-4 sm:grid-cols-2">
         {values.sizeBy === "awg" ? (
           <TextField label="AWG size" hint="For example 18, or 4/0 for the largest." {...bind("awg")} error={errors.awg} />
@@ -50,11 +48,11 @@ export function WindingCalculator() {
         ) : (
           <NumberField label="Strand diameter (bare)" unit="mm" {...bind("diameterMm")} error={errors.diameterMm} />
         )}
-        <NumberField label="Strands in parallel" hint="1 for a single wire." {...bind("strands")} error={errors.strands} />
+        <NumberField label="Strands in parallel" {...bind("strands")} error={errors.strands} />
       </div>
       <div className="grid gap-4 sm:grid-cols-2">
         <NumberField label="Wire length" unit="m" hint="Mean turn length × turns." {...bind("lengthM")} error={errors.lengthM} />
-        <NumberField label="Current (RMS)" unit="A" {...bind("currentA")} error={errors.currentA} />
+        <NumberField label="Current (RMS)" unit="A" hint="Through the winding at full load." {...bind("currentA")} error={errors.currentA} />
       </div>
       <div className="grid gap-4 sm:grid-cols-2">
         <NumberField

@@ -5,3 +5,4 @@ export * from "./sellers";
 export * from "./listings";
 export * from "./moderation";
 export * from "./mail";
+export * from "./orders";

@@ -1,7 +1,7 @@
 import type { FakeClock } from "./clock";
 import { newId } from "./ids";
 import type { FakeStore } from "./store";
-import type { StripeEvent } from "./types";
+import type { ApiEvent } from "./types";
 import type { WebhookDispatcher } from "./webhook-dispatcher";
 
 /** The API request a change came from, recorded on the events it causes. */
@@ -36,8 +36,8 @@ export function emitEvent(
   type: string,
   object: unknown,
   previousAttributes?: Record<string, unknown>,
-): StripeEvent {
-  const event: StripeEvent = {
+): ApiEvent {
+  const event: ApiEvent = {
     id: newId("evt"),
     object: "event",
     api_version: origin.apiVersion,

@@ -115,7 +115,13 @@ export async function startPaymentsFake(options: PaymentsFakeOptions = {}): Prom
         sendHtml(res, 503, renderMessagePage("Payments are unavailable", "The local payments fake is simulating an outage. Try again shortly."));
         return;
       }
-      const id = decodeURIComponent(hosted[2] ?? "");
+      let id: string;
+      try {
+        id = decodeURIComponent(hosted[2] ?? "");
+      } catch {
+        sendHtml(res, 404, renderMessagePage("Page not found", "This address is not known to the local payments fake."));
+        return;
+      }
       if (hosted[1] === "pay") {
         if (method === "GET") showCheckout(ctx, res, id);
         else submitCheckout(ctx, res, id, rawBody);
@@ -173,7 +179,7 @@ export async function startPaymentsFake(options: PaymentsFakeOptions = {}): Prom
       server.close(() => resolve());
       server.closeAllConnections();
       for (const socket of sockets) socket.destroy();
-      store.flush();
+      store.close();
     });
     return closing;
   };

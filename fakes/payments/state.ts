@@ -7,7 +7,7 @@ import type {
   PaymentIntent,
   PaymentIntentData,
   Refund,
-  StripeEvent,
+  ApiEvent,
   Transfer,
 } from "./types";
 
@@ -38,7 +38,7 @@ export interface FakeState {
   charges: Record<string, Charge>;
   refunds: Record<string, Refund>;
   transfers: Record<string, Transfer>;
-  events: Record<string, StripeEvent>;
+  events: Record<string, ApiEvent>;
   idempotency: Record<string, IdempotencyEntry>;
   // Endpoints added at runtime; those passed as options are not stored.
   webhookEndpoints: WebhookEndpointConfig[];

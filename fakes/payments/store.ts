@@ -10,6 +10,7 @@ const IDEMPOTENCY_TTL_SECONDS = 24 * 60 * 60;
 export class FakeStore {
   state: FakeState;
   private pending = false;
+  private closed = false;
 
   constructor(private readonly file?: string) {
     this.state = file && existsSync(file) ? loadState(file) : emptyState();
@@ -17,18 +18,26 @@ export class FakeStore {
 
   /** Coalesces the writes of one request (and its events) into one file write. */
   changed(): void {
-    if (!this.file || this.pending) return;
+    if (!this.file || this.pending || this.closed) return;
     this.pending = true;
-    setImmediate(() => this.flush());
+    setImmediate(() => {
+      if (this.pending) this.flush();
+    });
   }
 
   flush(): void {
     this.pending = false;
-    if (!this.file) return;
+    if (!this.file || this.closed) return;
     mkdirSync(dirname(this.file), { recursive: true });
     const temp = `${this.file}.${process.pid}.tmp`;
     writeFileSync(temp, JSON.stringify(this.state));
     renameSync(temp, this.file);
+  }
+
+  /** Writes what is left and stops writing, so nothing recreates the file after shutdown. */
+  close(): void {
+    this.flush();
+    this.closed = true;
   }
 
   pruneIdempotency(now: number): void {

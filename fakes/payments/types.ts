@@ -256,7 +256,7 @@ export interface Transfer {
   transfer_group: string | null;
 }
 
-export interface StripeEvent {
+export interface ApiEvent {
   id: string;
   object: "event";
   api_version: string;

@@ -3,7 +3,7 @@
 import http from "node:http";
 import https from "node:https";
 import { newId } from "./ids";
-import type { StripeEvent } from "./types";
+import type { ApiEvent } from "./types";
 import { signWebhookPayload } from "./webhook-signature";
 
 export interface DispatcherOptions {
@@ -52,8 +52,8 @@ export class WebhookDispatcher {
 
   constructor(
     private readonly options: DispatcherOptions,
-    private readonly lookupEvent: (id: string) => StripeEvent | undefined,
-    private readonly onDelivered: (event: StripeEvent) => void,
+    private readonly lookupEvent: (id: string) => ApiEvent | undefined,
+    private readonly onDelivered: (event: ApiEvent) => void,
   ) {}
 
   addEndpoint(url: string, secret: string): void {
@@ -71,7 +71,7 @@ export class WebhookDispatcher {
   }
 
   /** Queues the event for every endpoint, or only for `onlyUrl`; returns the new deliveries. */
-  enqueue(event: StripeEvent, onlyUrl?: string): Delivery[] {
+  enqueue(event: ApiEvent, onlyUrl?: string): Delivery[] {
     const created: Delivery[] = [];
     for (const endpoint of this.endpoints) {
       if (onlyUrl && endpoint.url !== onlyUrl) continue;

@@ -620,6 +620,12 @@ describe("requests", () => {
       .create({ amount: "12.5" as unknown as number, currency: "usd" })
       .catch((e: unknown) => e);
     expect(badInt).toMatchObject({ statusCode: 400, param: "amount" });
+    // payment_method_types gave way to allowed_payment_method_types in this API version
+    // (stripe-node CHANGELOG for the 2026-09-30.endive pin).
+    const legacy = await stripe.paymentIntents
+      .create({ amount: 1500, currency: "usd", payment_method_types: ["card"] } as unknown as Stripe.PaymentIntentCreateParams)
+      .catch((e: unknown) => e);
+    expect(legacy).toMatchObject({ statusCode: 400, code: "parameter_unknown", param: "payment_method_types" });
   });
 
   it("pages through events newest first", async () => {

@@ -16,7 +16,6 @@ import {
   optMetadata,
   optObject,
   optString,
-  optStringArray,
   optUrl,
   rejectUnknown,
   reqCurrency,
