@@ -5,7 +5,10 @@ export type NavLink = { href: string; label: string };
 
 /** The header's links for a person: what every visitor sees, then one link per area they may enter. */
 export function navLinksFor(user: SessionUser | null): NavLink[] {
-  const links: NavLink[] = [{ href: "/workbench", label: "Workbench" }];
+  const links: NavLink[] = [
+    { href: "/catalog", label: "Catalog" },
+    { href: "/workbench", label: "Workbench" },
+  ];
   const areas: { role: Role; link: NavLink }[] = [
     { role: "seller", link: { href: "/sell", label: "Seller desk" } },
     { role: "admin", link: { href: "/admin/users", label: "People & roles" } },

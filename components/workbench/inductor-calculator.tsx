@@ -160,7 +160,7 @@ function InductorResults({ figures: f }: { figures: InductorFigures }) {
       </ResultList>
 
       {f.target !== null ? (
-        <section aria-label="Turns for the target inductance">
+        <div>
           <h3 className="text-sm font-semibold text-graphite-900">For {formatSi(f.target.inductanceH, "H")} on this core</h3>
           <ResultList>
             <ResultRow
@@ -174,7 +174,7 @@ function InductorResults({ figures: f }: { figures: InductorFigures }) {
               status={fluxStatus(f.target.peakFluxT, f.material)}
             />
           </ResultList>
-        </section>
+        </div>
       ) : null}
     </div>
   );

@@ -140,7 +140,7 @@ function MainsResults({ figures: f }: { figures: MainsFigures }) {
       </ResultList>
 
       {f.dischargeS !== null && f.timeConstantS !== null ? (
-        <section aria-label="With the fitted bleeder">
+        <div>
           <h3 className="text-sm font-semibold text-graphite-900">With the fitted bleeder</h3>
           <ResultList>
             <ResultRow label="Time constant R·C" value={<Figure value={f.timeConstantS} unit="s" />} />
@@ -162,7 +162,7 @@ function MainsResults({ figures: f }: { figures: MainsFigures }) {
               />
             ) : null}
           </ResultList>
-        </section>
+        </div>
       ) : f.aboveSafeVoltage ? (
         <Alert tone="caution" role="none" title="No bleeder: the wait is unbounded">
           <p>
@@ -175,7 +175,7 @@ function MainsResults({ figures: f }: { figures: MainsFigures }) {
       ) : null}
 
       {f.suggestedBleeder !== null ? (
-        <section aria-label="Suggested bleeder">
+        <div>
           <h3 className="text-sm font-semibold text-graphite-900">
             Suggested bleeder for {formatSi(f.targetDischargeS, "s")}
           </h3>
@@ -191,7 +191,7 @@ function MainsResults({ figures: f }: { figures: MainsFigures }) {
             />
             <ResultRow label={`Time to reach ${safe}`} value={<Figure value={f.suggestedBleeder.dischargeS} unit="s" />} />
           </ResultList>
-        </section>
+        </div>
       ) : (
         <p className="text-sm text-graphite-700">The bus never exceeds {safe}, so no bleeder is needed to reach it.</p>
       )}

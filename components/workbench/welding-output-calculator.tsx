@@ -144,7 +144,7 @@ function WeldingResults({ figures: f }: { figures: WeldingFigures }) {
         />
       </ResultList>
 
-      <section aria-label="Conventional load">
+      <div>
         <h3 className="text-sm font-semibold text-graphite-900">Conventional load, {PROCESS_LABELS[f.process]}</h3>
         <ResultList>
           <ResultRow
@@ -161,9 +161,9 @@ function WeldingResults({ figures: f }: { figures: WeldingFigures }) {
             note="The source must hold this voltage at that current to be rated for it."
           />
         </ResultList>
-      </section>
+      </div>
 
-      <section aria-label="Duty cycle">
+      <div>
         <h3 className="text-sm font-semibold text-graphite-900">Duty cycle</h3>
         <ResultList>
           <ResultRow
@@ -178,7 +178,7 @@ function WeldingResults({ figures: f }: { figures: WeldingFigures }) {
           />
           <ResultRow label="Continuous current (100 %)" value={<Figure value={f.dutyCycle.continuousA} unit="A" />} />
         </ResultList>
-      </section>
+      </div>
     </div>
   );
 }

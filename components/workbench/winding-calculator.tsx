@@ -140,7 +140,7 @@ function WindingResults({ figures: f }: { figures: WindingFigures }) {
       </ResultList>
 
       {f.skinDepthM !== null && f.radiusToSkinDepth !== null ? (
-        <section aria-label="Skin effect">
+        <div>
           <h3 className="text-sm font-semibold text-graphite-900">Skin effect</h3>
           <ResultList>
             <ResultRow label="Skin depth" value={<Millimetres metres={f.skinDepthM} />} />
@@ -159,7 +159,7 @@ function WindingResults({ figures: f }: { figures: WindingFigures }) {
               }
             />
           </ResultList>
-        </section>
+        </div>
       ) : null}
     </div>
   );

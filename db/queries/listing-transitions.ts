@@ -57,7 +57,20 @@ const MAILS = {
  * the decision, the audit entry and the seller's e-mail are written in one transaction.
  */
 export async function transitionListing(input: TransitionInput): Promise<{ from: ListingState; to: ListingState }> {
-  const { result, mailIds } = await db.transaction(async (tx) => {
+  const { result, mailIds } = await db.transaction((tx) => transitionListingInTx(tx, input));
+  await dispatchMail(mailIds);
+  return result;
+}
+
+/**
+ * The same inside a caller's transaction (an edit and the resubmission it causes commit together);
+ * the caller dispatches `mailIds` after its commit.
+ */
+export async function transitionListingInTx(
+  tx: Tx,
+  input: TransitionInput,
+): Promise<{ result: { from: ListingState; to: ListingState }; mailIds: string[] }> {
+  {
     const [listing] = await tx.select().from(listings).where(eq(listings.id, input.listingId)).for("update");
     if (!listing) throw new TransitionError(404, "No such listing.");
     const plan = planTransition({ listing, action: input.action, actor: input.actor, reasons: input.reasons, note: input.note });
@@ -134,9 +147,7 @@ export async function transitionListing(input: TransitionInput): Promise<{ from:
       }
     }
     return { result: { from: plan.from, to: plan.to }, mailIds };
-  });
-  await dispatchMail(mailIds);
-  return result;
+  }
 }
 
 async function assertReadyForReview(tx: Tx, listing: Listing): Promise<void> {
