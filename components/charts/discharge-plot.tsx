@@ -37,7 +37,9 @@ export function DischargePlot({ points, safeV, dischargeS, through, title, capti
   const timeText = (s: number) => (minutes ? formatSi(s / 60, "min", 3, { prefixes: false }) : formatSi(s, "s"));
   const startV = points[0]?.volts ?? 0;
 
-  const markers: ChartMarker[] = [{ axis: "y", value: safeV, label: `${formatSi(safeV, "V")} safe level`, tone: "verdigris" }];
+  const markers: ChartMarker[] = [
+    { axis: "y", value: safeV, label: `${formatSi(safeV, "V")} safe level`, tone: "verdigris" },
+  ];
   if (dischargeS !== null && Number.isFinite(dischargeS) && dischargeS > 0) {
     markers.push({ axis: "x", value: dischargeS / perUnit, label: `t = ${timeText(dischargeS)}`, tone: "amber" });
   }

@@ -17,7 +17,16 @@ export interface FluxPlotProps {
 }
 
 /** Peak flux density against current, with the design maximum, saturation and the rated current marked. */
-export function FluxPlot({ points, ratedCurrentA, designMaxT, saturationT, materialLabel, title, caption, className }: FluxPlotProps) {
+export function FluxPlot({
+  points,
+  ratedCurrentA,
+  designMaxT,
+  saturationT,
+  materialLabel,
+  title,
+  caption,
+  className,
+}: FluxPlotProps) {
   const rated = formatSi(ratedCurrentA, "A");
   const markers: ChartMarker[] = [
     { axis: "y", value: saturationT, label: `Saturation ${formatSi(saturationT, "T")}`, tone: "signal" },
@@ -35,7 +44,12 @@ export function FluxPlot({ points, ratedCurrentA, designMaxT, saturationT, mater
       x={{ label: "Winding current", unit: "A" }}
       y={{ label: "Peak flux density", unit: "T" }}
       series={[
-        { id: "flux", label: "Flux density", points: points.map((p) => ({ x: p.currentA, y: p.fluxT })), tone: "copper" },
+        {
+          id: "flux",
+          label: "Flux density",
+          points: points.map((p) => ({ x: p.currentA, y: p.fluxT })),
+          tone: "copper",
+        },
       ]}
       markers={markers}
       caption={caption}

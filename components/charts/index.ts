@@ -11,4 +11,13 @@ export {
   type LineChartProps,
 } from "./line-chart";
 export { LoadLinePlot, type LoadLinePlotProps, type LoadLinePoint } from "./load-line-plot";
-export { axisExponent, linePath, linearScale, niceStep, niceTicks, sampleEvenly, tickLabels, type NiceTicks } from "./scale";
+export {
+  axisExponent,
+  linePath,
+  linearScale,
+  niceStep,
+  niceTicks,
+  sampleEvenly,
+  tickLabels,
+  type NiceTicks,
+} from "./scale";

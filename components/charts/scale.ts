@@ -120,7 +120,10 @@ export function axisExponent(ticks: readonly number[], unit: string, options: Ti
 export function tickLabels(ticks: readonly number[], unit: string, options: TickLabelOptions = {}): string[] {
   const exponent = axisExponent(ticks, unit, options);
   const scale = 10 ** exponent;
-  const steps = ticks.slice(1).map((t, i) => Math.abs(t - (ticks[i] ?? 0))).filter((d) => d > 0);
+  const steps = ticks
+    .slice(1)
+    .map((t, i) => Math.abs(t - (ticks[i] ?? 0)))
+    .filter((d) => d > 0);
   const step = steps.length > 0 ? Math.min(...steps) / scale : 1;
   const decimals = decimalsOf(step);
   const prefix = PREFIXES[exponent] ?? "";

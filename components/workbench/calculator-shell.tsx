@@ -19,7 +19,15 @@ export interface CalculatorShellProps {
 const stay = (event: FormEvent<HTMLFormElement>) => event.preventDefault();
 
 /** Inputs on the left, results and the plot on the right; stacked on narrow screens. */
-export function CalculatorShell({ inputs, results, status, statusTone = "info", plotTitle, plot, actions }: CalculatorShellProps) {
+export function CalculatorShell({
+  inputs,
+  results,
+  status,
+  statusTone = "info",
+  plotTitle,
+  plot,
+  actions,
+}: CalculatorShellProps) {
   return (
     <div className="grid gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(0,3fr)] lg:items-start">
       <Panel title="Inputs" actions={actions}>

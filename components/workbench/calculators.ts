@@ -12,7 +12,8 @@ export const WORKBENCH_CALCULATORS: readonly WorkbenchCalculator[] = [
     slug: "mains",
     href: "/workbench/mains",
     title: "Mains bus and bleeder",
-    question: "How high the rectified bus charges, what it stores, and how long it takes to fall to 60\u00a0V after switch-off.",
+    question:
+      "How high the rectified bus charges, what it stores, and how long it takes to fall to 60\u00a0V after switch-off.",
   },
   {
     slug: "inductor",
@@ -24,19 +25,22 @@ export const WORKBENCH_CALCULATORS: readonly WorkbenchCalculator[] = [
     slug: "transformer",
     href: "/workbench/transformer",
     title: "Transformer turns",
-    question: "How many primary turns keep the core within its flux at the drive voltage, and the turns ratio for the secondary.",
+    question:
+      "How many primary turns keep the core within its flux at the drive voltage, and the turns ratio for the secondary.",
   },
   {
     slug: "winding",
     href: "/workbench/winding",
     title: "Winding wire",
-    question: "What a winding costs in resistance, loss and current density, and whether the strands suit the switching frequency.",
+    question:
+      "What a winding costs in resistance, loss and current density, and whether the strands suit the switching frequency.",
   },
   {
     slug: "welding-output",
     href: "/workbench/welding-output",
     title: "Welding output",
-    question: "Whether the open-circuit voltage is within the standard's limit, and the load voltage the source must hold across its range.",
+    question:
+      "Whether the open-circuit voltage is within the standard's limit, and the load voltage the source must hold across its range.",
   },
 ];
 

@@ -50,12 +50,28 @@ export function InductorCalculator() {
       {values.method === "gap" ? (
         <>
           <div className="grid gap-4 sm:grid-cols-2">
-            <NumberField label="Total air gap" unit="mm" hint="Both legs of a spacer gap count." {...bind("gapM")} error={errors.gapM} />
-            <NumberField label="Magnetic path length le" unit="mm" hint="From the core's data." {...bind("pathM")} error={errors.pathM} />
+            <NumberField
+              label="Total air gap"
+              unit="mm"
+              hint="A spacer under all legs counts twice."
+              {...bind("gapM")}
+              error={errors.gapM}
+            />
+            <NumberField
+              label="Magnetic path length le"
+              unit="mm"
+              hint="From the core's data."
+              {...bind("pathM")}
+              error={errors.pathM}
+            />
           </div>
           <NumberField
             label="Relative permeability of the core"
-            hint={material ? `Leave empty for the typical ${material.typicalRelativePermeability} of ${material.label}.` : undefined}
+            hint={
+              material
+                ? `Leave empty for the typical ${material.typicalRelativePermeability} of ${material.label}.`
+                : undefined
+            }
             {...bind("relativePermeability")}
             error={errors.relativePermeability}
           />
@@ -154,14 +170,19 @@ function InductorResults({ figures: f }: { figures: InductorFigures }) {
           status={marginStatus(f.marginToSaturation, FLUX_MARGIN_CAUTION)}
           note="Ferrite loses part of its saturation flux density when hot; the lower end of the range is used."
         />
-        <ResultRow label={`Stored energy at ${formatSi(f.ratedCurrentA, "A")}`} value={<Figure value={f.storedEnergyJ} unit="J" />} />
+        <ResultRow
+          label={`Stored energy at ${formatSi(f.ratedCurrentA, "A")}`}
+          value={<Figure value={f.storedEnergyJ} unit="J" />}
+        />
         <ResultRow label="Current at the design maximum" value={<Figure value={f.designMaxCurrentA} unit="A" />} />
         <ResultRow label="Current at saturation" value={<Figure value={f.saturationCurrentA} unit="A" />} />
       </ResultList>
 
       {f.target !== null ? (
         <div>
-          <h3 className="text-sm font-semibold text-graphite-900">For {formatSi(f.target.inductanceH, "H")} on this core</h3>
+          <h3 className="text-sm font-semibold text-graphite-900">
+            For {formatSi(f.target.inductanceH, "H")} on this core
+          </h3>
           <ResultList>
             <ResultRow
               label="Turns needed"

@@ -111,7 +111,9 @@ export function evaluateInductor(values: InductorValues): Outcome<InductorFigure
 
   const parsed = inductorCalcSchema.safeParse(body);
   const target = targetSchema.safeParse(readSi(values.targetInductanceH, INDUCTOR_SPECS.targetInductanceH));
-  const schemaErrors = parsed.success ? {} : errorsFromZod<InductorField>(parsed.error, { specs: INDUCTOR_SPECS }).fieldErrors;
+  const schemaErrors = parsed.success
+    ? {}
+    : errorsFromZod<InductorField>(parsed.error, { specs: INDUCTOR_SPECS }).fieldErrors;
   const targetErrors: FieldErrors<InductorField> = target.success
     ? {}
     : { targetInductanceH: target.error.issues.map((issue) => issueMessage(issue, INDUCTOR_SPECS.targetInductanceH)) };
@@ -131,15 +133,31 @@ export function evaluateInductor(values: InductorValues): Outcome<InductorFigure
         ratedCurrentA: input.ratedCurrentA,
         turns: input.turns,
         effectiveAlNh,
-        target: targetH === undefined ? null : turnsFor(targetH, effectiveAlNh, input.ratedCurrentA, input.coreAreaM2, result.material.designMaxT),
+        target:
+          targetH === undefined
+            ? null
+            : turnsFor(targetH, effectiveAlNh, input.ratedCurrentA, input.coreAreaM2, result.material.designMaxT),
       };
     },
-    { alNh: "alNh", turns: "turns", coreAreaM2: "coreAreaM2", gapM: "gapM", pathM: "pathM", inductanceH: "targetInductanceH" },
+    {
+      alNh: "alNh",
+      turns: "turns",
+      coreAreaM2: "coreAreaM2",
+      gapM: "gapM",
+      pathM: "pathM",
+      inductanceH: "targetInductanceH",
+    },
   );
 }
 
 // Turns for the target on the same core and gap: L grows with N², so AL = L/N² carries over.
-function turnsFor(targetH: number, alNh: number, currentA: number, coreAreaM2: number, designMaxT: number): TargetTurns {
+function turnsFor(
+  targetH: number,
+  alNh: number,
+  currentA: number,
+  coreAreaM2: number,
+  designMaxT: number,
+): TargetTurns {
   const turns = turnsForInductance({ alNh, inductanceH: targetH });
   const reachedH = inductanceFromAl({ alNh, turns });
   const peakFluxT = peakFluxDensity({ inductanceH: reachedH, peakCurrentA: currentA, turns, coreAreaM2 });
@@ -147,7 +165,10 @@ function turnsFor(targetH: number, alNh: number, currentA: number, coreAreaM2: n
 }
 
 /** The word and tone of a peak flux density against the core's design maximum and saturation. */
-export function fluxStatus(peakFluxT: number, material: { designMaxT: number; saturationT: { min: number } }): ResultStatus {
+export function fluxStatus(
+  peakFluxT: number,
+  material: { designMaxT: number; saturationT: { min: number } },
+): ResultStatus {
   if (peakFluxT > material.saturationT.min) return { word: "Saturates", tone: "stop" };
   if (peakFluxT > material.designMaxT) return { word: "Above design maximum", tone: "caution" };
   if (1 - peakFluxT / material.designMaxT < FLUX_MARGIN_CAUTION) return { word: "Under 10 % margin", tone: "caution" };

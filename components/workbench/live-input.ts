@@ -22,8 +22,7 @@ export interface NumberSpec {
 export type FieldErrors<K extends string = string> = Partial<Record<K, string[]>>;
 
 export type Outcome<R, K extends string = string> =
-  | { ok: true; result: R }
-  | { ok: false; fieldErrors: FieldErrors<K>; message: string };
+  { ok: true; result: R } | { ok: false; fieldErrors: FieldErrors<K>; message: string };
 
 /** "" (left empty) → undefined; anything else → its number, NaN when it is none. */
 export function readNumber(text: string | undefined): number | undefined {
@@ -64,7 +63,11 @@ export function issueMessage(issue: Issue, spec: NumberSpec | undefined): string
     const bound = issue.inclusive === false ? "less than" : "at most";
     return `${spec.label} must be ${bound} ${inFieldUnits(Number(issue.maximum), spec)}.`;
   }
-  const unusable = issue.code === "invalid_type" || issue.code === "invalid_union" || issue.code === "invalid_value" || issue.code === "custom";
+  const unusable =
+    issue.code === "invalid_type" ||
+    issue.code === "invalid_union" ||
+    issue.code === "invalid_value" ||
+    issue.code === "custom";
   if (spec?.invalidMessage && unusable) return spec.invalidMessage;
   // zod reports a fraction where a whole number is wanted as invalid_type "int"; its own
   // message ("Turns must be a whole number.") already says it best.
@@ -96,7 +99,9 @@ export function errorsFromZod<K extends string>(error: z.ZodError, mapping: Erro
 
 /** The summary line under a form whose inputs do not validate. */
 export function invalidMessage(count: number): string {
-  return count === 1 ? "Check the highlighted input; results update as you type." : "Check the highlighted inputs; results update as you type.";
+  return count === 1
+    ? "Check the highlighted input; results update as you type."
+    : "Check the highlighted inputs; results update as you type.";
 }
 
 /**

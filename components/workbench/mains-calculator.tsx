@@ -31,7 +31,9 @@ export function MainsCalculator() {
 
   const choosePreset = (id: string) => {
     const preset = MAINS_PRESETS.find((p) => p.id === id);
-    setValues((v) => (preset ? { ...v, preset: id, mainsVrms: preset.vrms, tolerance: preset.tolerancePct } : { ...v, preset: id }));
+    setValues((v) =>
+      preset ? { ...v, preset: id, mainsVrms: preset.vrms, tolerance: preset.tolerancePct } : { ...v, preset: id },
+    );
   };
   const typeSupply = (key: "mainsVrms" | "tolerance", text: string) =>
     setValues((v) => {
@@ -66,7 +68,12 @@ export function MainsCalculator() {
           error={errors.tolerance}
         />
       </div>
-      <NumberField label="Bulk capacitance on the bus" unit="µF" {...bind("capacitanceF")} error={errors.capacitanceF} />
+      <NumberField
+        label="Bulk capacitance on the bus"
+        unit="µF"
+        {...bind("capacitanceF")}
+        error={errors.capacitanceF}
+      />
       <NumberField
         label="Bleeder resistance"
         unit="kΩ"
@@ -77,7 +84,7 @@ export function MainsCalculator() {
       <NumberField
         label="Target time to reach 60 V"
         unit="s"
-        hint="For the suggested bleeder: a shorter time needs a smaller resistor, which runs hotter."
+        hint="The fitted bleeder is checked against it, and the suggested one meets it. Shorter needs a smaller resistor, which runs hotter."
         {...bind("targetDischargeS")}
         error={errors.targetDischargeS}
       />
@@ -123,17 +130,23 @@ function MainsResults({ figures: f }: { figures: MainsFigures }) {
         <ResultRow
           label="DC bus peak"
           value={<Figure value={f.busPeakV} unit="V" digits={4} />}
-          status={f.aboveSafeVoltage ? { word: `Above ${safe}`, tone: "caution" } : { word: `At or below ${safe}`, tone: "clear" }}
+          status={
+            f.aboveSafeVoltage
+              ? { word: `Above ${safe}`, tone: "caution" }
+              : { word: `At or below ${safe}`, tone: "clear" }
+          }
           note="√2 × mains RMS × (1 + tolerance), behind a bridge rectifier."
         />
         <ResultRow label="Stored energy" value={<Figure value={f.energyJ} unit="J" />} />
         <ResultRow
           label="Stored charge"
           value={<Figure value={f.chargeC} unit="C" />}
-          status={f.chargeAboveThreshold ? { word: "Above 45 µC", tone: "caution" } : { word: "45 µC or less", tone: "clear" }}
+          status={
+            f.chargeAboveThreshold ? { word: "Above 45 µC", tone: "caution" } : { word: "45 µC or less", tone: "clear" }
+          }
           note={
             f.chargeAboveThreshold && f.aboveSafeVoltage
-              ? "Over 60 V with more than 45 µC: a listing's safety sheet needs a stored-charge note with the wait below."
+              ? "Over 60 V with more than 45 µC: a listing's safety sheet needs a stored-charge note giving the wait, or the hand-discharge method when there is no bleeder."
               : undefined
           }
         />
@@ -164,14 +177,23 @@ function MainsResults({ figures: f }: { figures: MainsFigures }) {
           </ResultList>
         </div>
       ) : f.aboveSafeVoltage ? (
-        <Alert tone="caution" role="none" title="No bleeder: the wait is unbounded">
-          <p>
-            Without a bleeder nothing but the capacitors&apos; own leakage drains the bus, which can stay above {safe} for
-            hours. Discharge it by hand every time: with the supply unplugged, hold a resistor probe — a power resistor of a
-            few kΩ on insulated leads — across the bus terminals, and watch a meter until it reads below {safe}. Never short
-            the terminals with a screwdriver.
-          </p>
-        </Alert>
+        <div className="flex flex-col gap-3">
+          <ResultList>
+            <ResultRow
+              label={`Time to reach ${safe}`}
+              value={<Figure value={Number.POSITIVE_INFINITY} unit="s" />}
+              status={{ word: "Unbounded", tone: "caution" }}
+            />
+          </ResultList>
+          <Alert tone="caution" role="none" title="No bleeder: the wait is unbounded">
+            <p>
+              Without a bleeder nothing but the capacitors&apos; own leakage drains the bus, which can stay above {safe}{" "}
+              for hours. Discharge it by hand every time: with the supply unplugged, hold a resistor probe — a power
+              resistor of a few kΩ on insulated leads — across the bus terminals, and watch a meter until it reads below{" "}
+              {safe}. Never short the terminals with a screwdriver.
+            </p>
+          </Alert>
+        </div>
       ) : null}
 
       {f.suggestedBleeder !== null ? (
@@ -189,7 +211,10 @@ function MainsResults({ figures: f }: { figures: MainsFigures }) {
               value={<Figure value={f.suggestedBleeder.watts} unit="W" />}
               note="Common practice: choose a part rated for at least twice this, and for the full bus voltage — several resistors in series if one is not."
             />
-            <ResultRow label={`Time to reach ${safe}`} value={<Figure value={f.suggestedBleeder.dischargeS} unit="s" />} />
+            <ResultRow
+              label={`Time to reach ${safe}`}
+              value={<Figure value={f.suggestedBleeder.dischargeS} unit="s" />}
+            />
           </ResultList>
         </div>
       ) : (

@@ -1,7 +1,15 @@
 import { calculateMains, type MainsResult } from "@/lib/engineering/calculators";
 import { SAFE_VOLTAGE_V } from "@/lib/engineering";
 import { mainsCalcSchema } from "@/lib/validations/calc";
-import { compute, countErrors, errorsFromZod, invalidMessage, readSi, type NumberSpec, type Outcome } from "./live-input";
+import {
+  compute,
+  countErrors,
+  errorsFromZod,
+  invalidMessage,
+  readSi,
+  type NumberSpec,
+  type Outcome,
+} from "./live-input";
 
 export const MAINS_FIELDS = ["mainsVrms", "tolerance", "capacitanceF", "bleederOhm", "targetDischargeS"] as const;
 export type MainsField = (typeof MAINS_FIELDS)[number];

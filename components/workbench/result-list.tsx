@@ -32,7 +32,12 @@ export function ResultRow({ label, value, status, note }: ResultRowProps) {
   return (
     <div className="grid grid-cols-[minmax(0,1fr)_auto] items-baseline gap-x-4 gap-y-1 py-2" data-tone={status?.tone}>
       <dt className="text-sm text-graphite-700">{label}</dt>
-      <dd className={cx("flex flex-wrap items-baseline justify-end gap-2 text-right text-lg", status && VALUE_TONES[status.tone])}>
+      <dd
+        className={cx(
+          "flex flex-wrap items-baseline justify-end gap-2 text-right text-lg",
+          status && VALUE_TONES[status.tone],
+        )}
+      >
         {value}
         {status ? <StateBadge label={status.word} tone={status.tone} /> : null}
       </dd>

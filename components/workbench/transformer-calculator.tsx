@@ -105,7 +105,9 @@ export function TransformerCalculator() {
       status={
         outcome.ok
           ? `Wind ${outcome.result.primaryTurnsRounded} primary turns${
-              outcome.result.secondaryTurnsRounded !== null ? ` and ${outcome.result.secondaryTurnsRounded} secondary turns` : ""
+              outcome.result.secondaryTurnsRounded !== null
+                ? ` and ${outcome.result.secondaryTurnsRounded} secondary turns`
+                : ""
             }.`
           : outcome.message
       }
@@ -132,7 +134,11 @@ function TransformerResults({ result: r }: { result: TransformerResult }) {
       {r.voltSecondsVs !== null ? (
         <ResultRow label="Volt-seconds per on-time" value={<Figure value={r.voltSecondsVs} unit="V·s" />} />
       ) : null}
-      <ResultRow label="Primary turns (exact)" value={<Figure value={r.primaryTurns} unit="" digits={4} />} note={formula} />
+      <ResultRow
+        label="Primary turns (exact)"
+        value={<Figure value={r.primaryTurns} unit="" digits={4} />}
+        note={formula}
+      />
       <ResultRow
         label="Primary turns to wind"
         value={<Figure value={r.primaryTurnsRounded} unit="" digits={6} />}

@@ -1,6 +1,14 @@
 import { calculateTransformer, type TransformerResult } from "@/lib/engineering/calculators";
 import { transformerCalcSchema } from "@/lib/validations/calc";
-import { compute, countErrors, errorsFromZod, invalidMessage, readSi, type NumberSpec, type Outcome } from "./live-input";
+import {
+  compute,
+  countErrors,
+  errorsFromZod,
+  invalidMessage,
+  readSi,
+  type NumberSpec,
+  type Outcome,
+} from "./live-input";
 
 export const TRANSFORMER_FIELDS = [
   "primaryV",

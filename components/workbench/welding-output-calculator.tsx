@@ -50,7 +50,13 @@ export function WeldingOutputCalculator() {
         <NumberField label="Highest output current" unit="A" {...bind("maxCurrentA")} error={errors.maxCurrentA} />
       </div>
       <div className="grid gap-4 sm:grid-cols-2">
-        <NumberField label="Rated current" unit="A" hint="The current the duty cycle is stated for." {...bind("ratedA")} error={errors.ratedA} />
+        <NumberField
+          label="Rated current"
+          unit="A"
+          hint="What the duty cycle is stated for."
+          {...bind("ratedA")}
+          error={errors.ratedA}
+        />
         <NumberField
           label="Duty cycle at that current"
           unit="%"
@@ -119,8 +125,8 @@ function WeldingResults({ figures: f }: { figures: WeldingFigures }) {
     <div className="flex flex-col gap-5">
       {!f.ocv.withinLimit ? (
         <Alert tone="stop" role="none" title="Open-circuit voltage over the limit">
-          A welding source with this open-circuit voltage cannot be listed: its safety sheet is blocked until the voltage is
-          brought within the limit for its environment.
+          A welding source with this open-circuit voltage cannot be listed: its safety sheet is blocked until the
+          voltage is brought within the limit for its environment.
         </Alert>
       ) : null}
       <ResultList>

@@ -14,7 +14,14 @@ import {
   type Outcome,
 } from "./live-input";
 
-export const WELDING_FIELDS = ["openCircuitV", "ratedA", "ratedDutyPct", "targetDutyPct", "minCurrentA", "maxCurrentA"] as const;
+export const WELDING_FIELDS = [
+  "openCircuitV",
+  "ratedA",
+  "ratedDutyPct",
+  "targetDutyPct",
+  "minCurrentA",
+  "maxCurrentA",
+] as const;
 export type WeldingField = (typeof WELDING_FIELDS)[number];
 export type WeldingValues = Record<WeldingField | "process" | "ocvKind" | "environment", string>;
 
@@ -85,9 +92,12 @@ export function evaluateWeldingOutput(values: WeldingValues): Outcome<WeldingFig
   const parsed = weldingOutputCalcSchema.safeParse(body);
   const min = minCurrentSchema.safeParse(readSi(values.minCurrentA, WELDING_SPECS.minCurrentA) ?? Number.NaN);
 
-  const schemaErrors = parsed.success ? {} : errorsFromZod<WeldingField>(parsed.error, { specs: WELDING_SPECS }).fieldErrors;
+  const schemaErrors = parsed.success
+    ? {}
+    : errorsFromZod<WeldingField>(parsed.error, { specs: WELDING_SPECS }).fieldErrors;
   const ownErrors: FieldErrors<WeldingField> = {};
-  if (!min.success) ownErrors.minCurrentA = min.error.issues.map((issue) => issueMessage(issue, WELDING_SPECS.minCurrentA));
+  if (!min.success)
+    ownErrors.minCurrentA = min.error.issues.map((issue) => issueMessage(issue, WELDING_SPECS.minCurrentA));
   else if (maxCurrentA !== undefined && min.data >= maxCurrentA) {
     ownErrors.minCurrentA = ["Lowest output current must be below the highest."];
   }

@@ -42,7 +42,12 @@ export function WindingCalculator() {
       <SelectField label="Wire size given as" options={SIZE_OPTIONS} {...bind("sizeBy")} />
       <div className="grid gap-4 sm:grid-cols-2">
         {values.sizeBy === "awg" ? (
-          <TextField label="AWG size" hint="For example 18, or 4/0 for the largest." {...bind("awg")} error={errors.awg} />
+          <TextField
+            label="AWG size"
+            hint="For example 18, or 4/0 for the largest."
+            {...bind("awg")}
+            error={errors.awg}
+          />
         ) : values.sizeBy === "area" ? (
           <NumberField label="Strand cross-section" unit="mm²" {...bind("areaMm2")} error={errors.areaMm2} />
         ) : (
@@ -51,8 +56,20 @@ export function WindingCalculator() {
         <NumberField label="Strands in parallel" {...bind("strands")} error={errors.strands} />
       </div>
       <div className="grid gap-4 sm:grid-cols-2">
-        <NumberField label="Wire length" unit="m" hint="Mean turn length × turns." {...bind("lengthM")} error={errors.lengthM} />
-        <NumberField label="Current (RMS)" unit="A" hint="Through the winding at full load." {...bind("currentA")} error={errors.currentA} />
+        <NumberField
+          label="Wire length"
+          unit="m"
+          hint="Mean turn length × turns."
+          {...bind("lengthM")}
+          error={errors.lengthM}
+        />
+        <NumberField
+          label="Current (RMS)"
+          unit="A"
+          hint="Through the winding at full load."
+          {...bind("currentA")}
+          error={errors.currentA}
+        />
       </div>
       <div className="grid gap-4 sm:grid-cols-2">
         <NumberField

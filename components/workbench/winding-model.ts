@@ -1,9 +1,26 @@
 import { calculateWinding, type WindingResult } from "@/lib/engineering/calculators";
 import { CONDUCTOR_MATERIAL_IDS, CONDUCTOR_MATERIALS, awgDiameter, awgNumber } from "@/lib/engineering";
 import { AWG_AUGHT_SIZES, windingCalcSchema } from "@/lib/validations/calc";
-import { compute, countErrors, errorsFromZod, invalidMessage, readSi, type NumberSpec, type Outcome } from "./live-input";
+import {
+  compute,
+  countErrors,
+  errorsFromZod,
+  invalidMessage,
+  readSi,
+  type NumberSpec,
+  type Outcome,
+} from "./live-input";
 
-export const WINDING_FIELDS = ["awg", "diameterMm", "areaMm2", "strands", "lengthM", "currentA", "temperatureC", "frequencyHz"] as const;
+export const WINDING_FIELDS = [
+  "awg",
+  "diameterMm",
+  "areaMm2",
+  "strands",
+  "lengthM",
+  "currentA",
+  "temperatureC",
+  "frequencyHz",
+] as const;
 export type WindingField = (typeof WINDING_FIELDS)[number];
 export type WireSizeBy = "awg" | "diameter" | "area";
 export type WindingValues = Record<WindingField | "material" | "sizeBy", string>;
@@ -16,7 +33,12 @@ const SHARED_SPECS = {
   strands: { label: "Strands", unit: "", toSi: 1 },
 } satisfies Record<string, NumberSpec>;
 
-const AREA_SPEC: NumberSpec = { label: "Conductor area", unit: "mm²", toSi: 1e-6, invalidMessage: "Enter the area of one strand in mm²." };
+const AREA_SPEC: NumberSpec = {
+  label: "Conductor area",
+  unit: "mm²",
+  toSi: 1e-6,
+  invalidMessage: "Enter the area of one strand in mm².",
+};
 // Area limits of the schema come back as the diameter of a round wire of that area.
 const DIAMETER_SPEC: NumberSpec = {
   label: "Strand diameter",
@@ -32,7 +54,10 @@ const AWG_SPEC: NumberSpec = {
   invalidMessage: "Enter an AWG size from 0000 (4/0) to 40, for example 18.",
 };
 
-export const MATERIAL_OPTIONS = CONDUCTOR_MATERIAL_IDS.map((id) => ({ value: id, label: CONDUCTOR_MATERIALS[id].label }));
+export const MATERIAL_OPTIONS = CONDUCTOR_MATERIAL_IDS.map((id) => ({
+  value: id,
+  label: CONDUCTOR_MATERIALS[id].label,
+}));
 
 // An invented welder primary: 20 strands of 0.5 mm enamelled copper, 3 m long, 12 A RMS,
 // running hot at 100 °C and switched at 40 kHz.

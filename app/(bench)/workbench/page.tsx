@@ -6,7 +6,8 @@ import { WORKBENCH_CALCULATORS } from "@/components/workbench/calculators";
 
 export const metadata: Metadata = {
   title: "Workbench",
-  description: "Calculators for mains buses, bleeders, chokes, transformers, windings and welding outputs, with live results and plots.",
+  description:
+    "Calculators for mains buses, bleeders, chokes, transformers, windings and welding outputs, with live results and plots.",
 };
 
 export default function WorkbenchPage() {

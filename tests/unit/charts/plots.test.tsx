@@ -4,7 +4,11 @@ import { DischargePlot, FluxPlot, LoadLinePlot } from "@/components/charts";
 import { busPeakVoltage, conventionalLoadVoltage, dischargeCurve, dischargeTime, fluxCurve } from "@/lib/engineering";
 import { tagsNamed } from "../ui/html";
 
-const text = (html: string) => html.replace(/<[^>]+>/g, " ").replace(/\s+/g, " ").trim();
+const text = (html: string) =>
+  html
+    .replace(/<[^>]+>/g, " ")
+    .replace(/\s+/g, " ")
+    .trim();
 
 /** x (or y) position of the tick label that reads exactly `label`. */
 function tickPosition(html: string, label: string, axis: "x" | "y"): number {
@@ -14,7 +18,9 @@ function tickPosition(html: string, label: string, axis: "x" | "y"): number {
 }
 
 function markerLine(html: string, axis: "x" | "y") {
-  const group = new RegExp(`<g data-marker="${axis}"><line x1="([\\d.]+)" x2="([\\d.]+)" y1="([\\d.]+)" y2="([\\d.]+)"`).exec(html);
+  const group = new RegExp(
+    `<g data-marker="${axis}"><line x1="([\\d.]+)" x2="([\\d.]+)" y1="([\\d.]+)" y2="([\\d.]+)"`,
+  ).exec(html);
   if (!group) throw new Error(`no ${axis} marker`);
   return { x: Number(group[1]), y: Number(group[3]) };
 }
@@ -28,7 +34,9 @@ const wait = dischargeTime({ ...rc, fromV: v0, toV: 60 });
 const curve = dischargeCurve({ ...rc, fromV: v0, toV: 60, points: 60 });
 
 describe("DischargePlot", () => {
-  const html = renderToStaticMarkup(<DischargePlot points={curve} safeV={60} dischargeS={wait} through="through 100 kΩ" />);
+  const html = renderToStaticMarkup(
+    <DischargePlot points={curve} safeV={60} dischargeS={wait} through="through 100 kΩ" />,
+  );
 
   it("labels the 60 V safe level and the computed wait", () => {
     expect(wait).toBeCloseTo(121.4, 1);
@@ -89,13 +97,20 @@ describe("FluxPlot", () => {
     // Invented choke: 92 µH, 24 turns on 240 mm²; B = L·I/(N·Ae) reaches 0.35 T at 24.3 A.
     const shape = { inductanceH: 92e-6, turns: 24, coreAreaM2: 240e-6 };
     const html = renderToStaticMarkup(
-      <FluxPlot points={fluxCurve({ ...shape, toCurrentA: 24.3 })} ratedCurrentA={15} designMaxT={0.3} saturationT={0.35} />,
+      <FluxPlot
+        points={fluxCurve({ ...shape, toCurrentA: 24.3 })}
+        ratedCurrentA={15}
+        designMaxT={0.3}
+        saturationT={0.35}
+      />,
     );
     const words = text(html);
     expect(words).toContain("Design max 300 mT");
     expect(words).toContain("Saturation 350 mT");
     expect(words).toContain("Rated 15 A");
-    expect(tagsNamed(html, "path").some((p) => p.attrs["data-series"] === "flux" && p.attrs.d?.startsWith("M"))).toBe(true);
+    expect(tagsNamed(html, "path").some((p) => p.attrs["data-series"] === "flux" && p.attrs.d?.startsWith("M"))).toBe(
+      true,
+    );
   });
 });
 

@@ -1,7 +1,15 @@
 import fc from "fast-check";
 import { unit as mathUnit } from "mathjs";
 import { describe, expect, it } from "vitest";
-import { axisExponent, linePath, linearScale, niceStep, niceTicks, sampleEvenly, tickLabels } from "@/components/charts/scale";
+import {
+  axisExponent,
+  linePath,
+  linearScale,
+  niceStep,
+  niceTicks,
+  sampleEvenly,
+  tickLabels,
+} from "@/components/charts/scale";
 
 // "Nice" steps follow the 1-2-5 rule of P. S. Heckbert, "Nice numbers for graph labels",
 // Graphics Gems (1990): a step is 1, 2 or 5 times a power of ten, and the axis runs between
@@ -146,6 +154,13 @@ describe("sampleEvenly and linePath", () => {
   });
 
   it("draws a move followed by line segments and skips non-finite points", () => {
-    expect(linePath([{ x: 0, y: 1 }, { x: 1.006, y: 2 }, { x: Number.NaN, y: 3 }, { x: 3, y: 4 }])).toBe("M0 1 L1.01 2 L3 4");
+    expect(
+      linePath([
+        { x: 0, y: 1 },
+        { x: 1.006, y: 2 },
+        { x: Number.NaN, y: 3 },
+        { x: 3, y: 4 },
+      ]),
+    ).toBe("M0 1 L1.01 2 L3 4");
   });
 });

@@ -22,7 +22,10 @@ export default function InductorPage() {
       <EstimateNote />
       <MethodNotes
         notes={[
-          { rule: "L = AL × N², or L = μ0·N²·Ae / (lg + le/μr) for a gapped core", source: "Erickson & Maksimović, Fundamentals of Power Electronics, ch. 13" },
+          {
+            rule: "L = AL × N², or L = μ0·N²·Ae / (lg + le/μr) for a gapped core",
+            source: "Erickson & Maksimović, Fundamentals of Power Electronics, ch. 13",
+          },
           { rule: "Peak flux density B = L·I / (N·Ae); stored energy ½·L·I²", source: "from N·Φ = L·I" },
           {
             rule: "Margins against the material's design maximum and the lower end of its saturation range",

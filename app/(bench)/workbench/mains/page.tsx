@@ -22,13 +22,20 @@ export default function MainsBusPage() {
       <EstimateNote />
       <MethodNotes
         notes={[
-          { rule: "Bus peak = √2 × Vrms × (1 + tolerance), at the top of the supply band", source: "nominal voltages and ±10 % band of IEC 60038" },
+          {
+            rule: "Bus peak = √2 × Vrms × (1 + tolerance), at the top of the supply band",
+            source: "nominal voltages and ±10 % band of IEC 60038",
+          },
           { rule: "Stored energy ½·C·V², stored charge C·V at that peak", source: "capacitor energy and charge" },
           {
             rule: "Time to the safe level t = R·C·ln(V0 / 60 V)",
-            source: "RC discharge; 60 V DC as the touch-safe limit of IEC 62368-1 (ES1) and IEC 61010-1, and 45 µC as the stored-charge limit of IEC 61010-1 (from memory)",
+            source:
+              "RC discharge; 60 V DC as the touch-safe limit of IEC 62368-1 (ES1) and IEC 61010-1, and 45 µC as the stored-charge limit of IEC 61010-1 (from memory)",
           },
-          { rule: "Suggested bleeder: the largest E12 value that meets the target time, dissipating V0²/R", source: "E12 series of IEC 60063" },
+          {
+            rule: "Suggested bleeder: the largest E12 value that meets the target time, dissipating V0²/R",
+            source: "E12 series of IEC 60063",
+          },
         ]}
       />
     </div>

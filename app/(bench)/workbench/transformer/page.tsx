@@ -26,7 +26,10 @@ export default function TransformerPage() {
             rule: "V = Kf·f·N·Ae·B, with Kf = 4.44 for a sine (RMS volts) and 4.0 for a square wave (amplitude)",
             source: "McLyman, Transformer and Inductor Design Handbook, ch. 1",
           },
-          { rule: "Forward converter: N = V·ton / (ΔB·Ae)", source: "Erickson & Maksimović, Fundamentals of Power Electronics, ch. 15" },
+          {
+            rule: "Forward converter: N = V·ton / (ΔB·Ae)",
+            source: "Erickson & Maksimović, Fundamentals of Power Electronics, ch. 15",
+          },
           { rule: "Turns are rounded up, so the flux never exceeds the figure you entered", source: "common practice" },
         ]}
       />

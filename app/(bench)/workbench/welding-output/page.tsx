@@ -26,7 +26,10 @@ export default function WeldingOutputPage() {
             rule: "Conventional load lines and no-load voltage limits for each output kind and environment",
             source: "IEC 60974-1 (figures from memory; check the edition you build to)",
           },
-          { rule: "Duty-cycle conversion by equal heating: I₂ = I₁·√(X₁ / X₂)", source: "IEC 60974-1 duty cycle over a 10-minute period" },
+          {
+            rule: "Duty-cycle conversion by equal heating: I₂ = I₁·√(X₁ / X₂)",
+            source: "IEC 60974-1 duty cycle over a 10-minute period",
+          },
         ]}
       />
     </div>

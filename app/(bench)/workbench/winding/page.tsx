@@ -26,7 +26,10 @@ export default function WindingPage() {
             rule: "R = ρ(T)·l / A with ρ(T) = ρ20·(1 + α·(T − 20 °C))",
             source: "annealed copper after IEC 60028, hard-drawn aluminium after IEC 60889",
           },
-          { rule: "Skin depth δ = √(ρ / (π·f·μ0))", source: "Erickson & Maksimović, Fundamentals of Power Electronics, ch. 13" },
+          {
+            rule: "Skin depth δ = √(ρ / (π·f·μ0))",
+            source: "Erickson & Maksimović, Fundamentals of Power Electronics, ch. 13",
+          },
           { rule: "AWG diameter d = 0.127 mm × 92^((36 − n)/39)", source: "ASTM B258" },
         ]}
       />
