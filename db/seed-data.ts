@@ -14,3 +14,37 @@ export const DEMO_ACCOUNTS: DemoAccount[] = [
   { id: "demo-reviewer", email: `tamsin.reviews@${DEMO_DOMAIN}`, name: "Tamsin Achterberg", roles: ["member", "reviewer"], about: "has brought up dozens of welding inverters" },
   { id: "demo-builder", email: `noor.builds@${DEMO_DOMAIN}`, name: "Noor Delacroix-Haidari", roles: ["member"], about: "is building a first stick-welding inverter" },
 ];
+
+export type DemoSeller = {
+  userId: string;
+  applicationId: string;
+  shopName: string;
+  slug: string;
+  country: string;
+  profileMd: string;
+  returnsPolicyMd: string;
+  returnsWindowDays: number;
+};
+
+export const DEMO_SELLERS: DemoSeller[] = [
+  {
+    userId: "demo-seller-kits",
+    applicationId: "5e11e700-0000-4000-8000-000000000001",
+    shopName: "Oyelaran Bench Kits",
+    slug: "oyelaran-bench-kits",
+    country: "NL",
+    profileMd: "Inverter boards and complete kits, designed and tested at the Larkspur Yard workshop. Every kit ships with bring-up checkpoints.",
+    returnsPolicyMd: "Unused kits in their original bags can be returned within **30 days**. Boards that have been soldered cannot be returned.",
+    returnsWindowDays: 30,
+  },
+  {
+    userId: "demo-seller-magnetics",
+    applicationId: "5e11e700-0000-4000-8000-000000000002",
+    shopName: "Kaszuba Windings",
+    slug: "kaszuba-windings",
+    country: "PL",
+    profileMd: "Hand-wound transformers, chokes and current transformers, each measured before it ships: inductance, turns ratio and insulation.",
+    returnsPolicyMd: "Wound parts made to order cannot be returned; stock parts within **14 days**, unmounted.",
+    returnsWindowDays: 14,
+  },
+];

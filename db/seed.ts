@@ -3,7 +3,14 @@
 import { drizzle } from "drizzle-orm/node-postgres";
 import pg from "pg";
 import * as schema from "./schema";
-import { DEMO_ACCOUNTS } from "./seed-data";
+import { DEMO_ACCOUNTS, DEMO_SELLERS } from "./seed-data";
+import { DEMO_LISTINGS, type DemoListing } from "./seed-listings";
+import { checkSafetySheet, CURRENT_POLICY_REVISION } from "@/lib/policy";
+import { deriveMagnetic } from "@/lib/listings/derived";
+import type { MagneticFigures } from "@/lib/validations/listings";
+
+type SeedTx = Parameters<Parameters<ReturnType<typeof drizzle<typeof schema>>["transaction"]>[0]>[0];
+const SEEDED_AT = new Date("2026-09-01T09:00:00Z");
 
 export async function seedDemo(connectionString: string): Promise<{ created: boolean }> {
   const pool = new pg.Pool({ connectionString, max: 2 });
@@ -25,12 +32,156 @@ export async function seedDemo(connectionString: string): Promise<{ created: boo
         .returning({ id: schema.users.id });
       await tx
         .insert(schema.userRoles)
-        .values(DEMO_ACCOUNTS.flatMap((a) => a.roles.map((role) => ({ userId: a.id, role, grantedAt: new Date("2026-09-01T09:00:00Z") }))))
+        .values(DEMO_ACCOUNTS.flatMap((a) => a.roles.map((role) => ({ userId: a.id, role, grantedAt: SEEDED_AT }))))
         .onConflictDoNothing();
-      return { created: inserted.length > 0 };
+      await seedSellers(tx);
+      const listings = await seedListings(tx);
+      return { created: inserted.length > 0 || listings > 0 };
     });
   } finally {
     await pool.end();
+  }
+}
+
+async function seedSellers(tx: SeedTx) {
+  for (const seller of DEMO_SELLERS) {
+    const application = {
+      id: seller.applicationId,
+      userId: seller.userId,
+      shopName: seller.shopName,
+      profileMd: seller.profileMd,
+      country: seller.country,
+      returnsPolicyMd: seller.returnsPolicyMd,
+      returnsWindowDays: seller.returnsWindowDays,
+      status: "approved" as const,
+      decidedBy: "demo-moderator",
+      decidedAt: SEEDED_AT,
+      createdAt: SEEDED_AT,
+    };
+    await tx.insert(schema.sellerApplications).values(application).onConflictDoNothing();
+    await tx
+      .insert(schema.sellerProfiles)
+      .values({
+        userId: seller.userId,
+        shopName: seller.shopName,
+        slug: seller.slug,
+        profileMd: seller.profileMd,
+        country: seller.country,
+        returnsPolicyMd: seller.returnsPolicyMd,
+        returnsWindowDays: seller.returnsWindowDays,
+        // The payout account itself is created in the payments stand-in by the launcher (fakes/demo-payouts.ts).
+        chargesEnabled: true,
+        payoutsEnabled: true,
+        createdAt: SEEDED_AT,
+      })
+      .onConflictDoNothing();
+  }
+}
+
+/** Inserts the demo listings that are missing; returns how many it inserted. */
+async function seedListings(tx: SeedTx): Promise<number> {
+  let inserted = 0;
+  for (const demo of DEMO_LISTINGS) {
+    const check = checkSafetySheet({ declaration: demo.declaration, notes: demo.notes, revision: CURRENT_POLICY_REVISION });
+    if (["live", "in_review", "held"].includes(demo.state) && check.status !== "clear") {
+      throw new Error(`demo listing ${demo.slug} must have a clear sheet: ${check.findings.map((f) => f.message).join(" ")}`);
+    }
+    const derived = demo.kind === "magnetic" && demo.magneticSubtype ? deriveMagnetic(demo.magneticSubtype, demo.figures as MagneticFigures) : null;
+    const rows = await tx
+      .insert(schema.listings)
+      .values({
+        id: demo.id,
+        sellerId: demo.sellerId,
+        kind: demo.kind,
+        magneticSubtype: demo.magneticSubtype ?? null,
+        title: demo.title,
+        slug: demo.slug,
+        descriptionMd: demo.descriptionMd,
+        priceMinor: demo.priceMinor,
+        currency: "EUR",
+        stock: demo.stock,
+        shippingWeightG: demo.shippingWeightG,
+        figures: demo.figures,
+        declaration: demo.declaration,
+        safetyNotes: demo.notes,
+        state: demo.state,
+        policyRevision: CURRENT_POLICY_REVISION.revision,
+        policyStatus: check.status,
+        inductanceH: derived?.inductanceH ?? null,
+        ratedCurrentA: demo.kind === "magnetic" ? (demo.figures as MagneticFigures).ratedCurrentA : null,
+        moderatorMessage: demo.moderatorMessage ?? null,
+        submittedAt: demo.state === "draft" ? null : SEEDED_AT,
+        liveAt: demo.state === "live" || demo.state === "held" ? SEEDED_AT : null,
+        createdAt: SEEDED_AT,
+        updatedAt: SEEDED_AT,
+      })
+      .onConflictDoNothing()
+      .returning({ id: schema.listings.id });
+    if (rows.length === 0) continue;
+    inserted += 1;
+    await seedListingParts(tx, demo);
+  }
+  return inserted;
+}
+
+async function seedListingParts(tx: SeedTx, demo: DemoListing) {
+  const key = `demo-${demo.photo}-${demo.id.slice(-4)}`;
+  await tx.insert(schema.uploads).values({
+    key,
+    ownerId: demo.sellerId,
+    purpose: "listing-photo",
+    originalName: `${demo.photo}.webp`,
+    contentType: "image/webp",
+    bytes: 12_000,
+    url: `/demo/${demo.photo}.webp`,
+    thumbUrl: `/demo/${demo.photo}-thumb.webp`,
+    width: 1200,
+    height: 900,
+    createdAt: SEEDED_AT,
+  });
+  await tx.insert(schema.listingPhotos).values({ listingId: demo.id, uploadKey: key, position: 0, alt: demo.title });
+  if (demo.checkpoints?.length) {
+    await tx.insert(schema.listingCheckpoints).values(
+      demo.checkpoints.map((c, position) => ({ listingId: demo.id, position, stage: c.stage, name: c.name, measure: c.measure, unit: c.unit, expectedMin: c.min, expectedMax: c.max })),
+    );
+  }
+  if (demo.requirements?.length) {
+    await tx.insert(schema.listingRequirements).values(
+      demo.requirements.map((r) => ({ listingId: demo.id, subtype: r.subtype, label: r.label, minInductanceH: r.minInductanceH ?? null, atCurrentA: r.atCurrentA ?? null })),
+    );
+  }
+  const history: { decision: schema.ListingDecisionKind; actorId: string; note?: string; reasons?: { topic: string; text: string }[] }[] = [];
+  if (demo.state !== "draft") history.push({ decision: "submitted", actorId: demo.sellerId });
+  if (demo.state === "live" || demo.state === "held") history.push({ decision: "approved", actorId: "demo-moderator" });
+  if (demo.state === "held") history.push({ decision: "held", actorId: "demo-moderator", note: demo.moderatorMessage });
+  if (demo.state === "sent_back") history.push({ decision: "sent_back", actorId: "demo-moderator", reasons: demo.reasons });
+  for (const step of history) {
+    await tx.insert(schema.listingDecisions).values({
+      listingId: demo.id,
+      actorId: step.actorId,
+      decision: step.decision,
+      reasons: step.reasons ?? [],
+      note: step.note ?? null,
+      policyRevision: CURRENT_POLICY_REVISION.revision,
+      createdAt: SEEDED_AT,
+    });
+    await tx.insert(schema.auditLog).values({
+      actorId: step.actorId,
+      action: `listing.${step.decision}`,
+      subjectType: "listing",
+      subjectId: demo.id,
+      reason: step.note ?? step.reasons?.map((r) => r.text).join("; ") ?? null,
+      details: { seeded: true },
+      at: SEEDED_AT,
+    });
+  }
+  if (demo.state === "live" || demo.state === "held") {
+    await tx.insert(schema.listingVersions).values({
+      listingId: demo.id,
+      approvedBy: "demo-moderator",
+      approvedAt: SEEDED_AT,
+      snapshot: { title: demo.title, descriptionMd: demo.descriptionMd, figures: demo.figures, declaration: demo.declaration, safetyNotes: demo.notes },
+    });
   }
 }
 

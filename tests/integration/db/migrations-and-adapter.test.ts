@@ -91,6 +91,13 @@ describe("database", () => {
     expect(await count()).toEqual(first);
     const { rows } = await pool.query<{ role: string }>("select distinct role::text from user_roles order by 1");
     expect(rows.map((r) => r.role)).toEqual(["admin", "member", "moderator", "reviewer", "seller"]);
+    const states = await pool.query<{ state: string }>("select distinct state::text from listings order by 1");
+    expect(states.rows.map((r) => r.state)).toEqual(["draft", "held", "in_review", "live", "sent_back"]);
+    // Magnetics carry their derived inductance for matching kits' requirements.
+    const choke = await pool.query("select inductance_h from listings where slug = 'output-choke-20uh-110a'");
+    // μ0·N²·Ae/(lg + le/μr) with N = 7, Ae = 10.7 cm², lg = 3.3 mm: about 19.5 µH (Erickson & Maksimović, ch. 13)
+    expect(choke.rows[0].inductance_h).toBeGreaterThan(18e-6);
+    expect(choke.rows[0].inductance_h).toBeLessThan(21e-6);
     const ids = await pool.query("select id from users where id = any($1)", [DEMO_ACCOUNTS.map((a) => a.id)]);
     expect(ids.rowCount).toBe(DEMO_ACCOUNTS.length);
   });
