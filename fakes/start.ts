@@ -10,6 +10,7 @@ import { startFakes } from "./index";
 import { appEnvironment, appUrl, DEV_PORTS, fakeUrls, LOCAL_KEYS, localAuthSecret } from "./local-config";
 import { buildApp, startApp, type AppProcess } from "./app-process";
 import { startWorker } from "./worker-process";
+import { ensureDemoPayoutAccounts } from "./demo-payouts";
 
 const root = path.resolve(import.meta.dirname, "..");
 const dataDir = path.join(root, ".data");
@@ -59,6 +60,7 @@ async function main() {
       },
     });
     stops.push(fakes.close);
+    await ensureDemoPayoutAccounts({ databaseUrl: database.url, paymentsUrl: urls.payments, secretKey: LOCAL_KEYS.stripeSecret });
 
     await buildApp(log);
     const worker = await startWorker({ env, log });

@@ -1,0 +1,43 @@
+// Gives the demo sellers connected payout accounts in the payments stand-in, so the demo can sell
+// from the first start. Idempotent: an account that still exists in the stand-in is kept.
+import pg from "pg";
+import Stripe from "stripe";
+import { DEMO_ACCOUNTS, DEMO_SELLERS } from "../db/seed-data";
+
+export async function ensureDemoPayoutAccounts({ databaseUrl, paymentsUrl, secretKey }: { databaseUrl: string; paymentsUrl: string; secretKey: string }) {
+  const url = new URL(paymentsUrl);
+  const stripe = new Stripe(secretKey, { host: url.hostname, port: Number(url.port), protocol: "http", maxNetworkRetries: 1, timeout: 10_000 });
+  const client = new pg.Client({ connectionString: databaseUrl });
+  await client.connect();
+  try {
+    for (const seller of DEMO_SELLERS) {
+      const { rows } = await client.query<{ payout_account_id: string | null }>("select payout_account_id from seller_profiles where user_id = $1", [seller.userId]);
+      if (rows.length === 0) continue;
+      const existing = rows[0]!.payout_account_id;
+      if (existing && (await accountIsEnabled(stripe, existing))) continue;
+      const email = DEMO_ACCOUNTS.find((a) => a.id === seller.userId)?.email;
+      const account = await stripe.accounts.create({ type: "express", country: seller.country, email, metadata: { userId: seller.userId } });
+      const done = await fetch(`${paymentsUrl}/api/test/complete-onboarding`, {
+        method: "POST",
+        headers: { "content-type": "application/json" },
+        body: JSON.stringify({ account: account.id }),
+      });
+      if (!done.ok) throw new Error(`the payments stand-in refused to finish onboarding for ${account.id}: ${done.status}`);
+      await client.query("update seller_profiles set payout_account_id = $2, charges_enabled = true, payouts_enabled = true, updated_at = now() where user_id = $1", [
+        seller.userId,
+        account.id,
+      ]);
+    }
+  } finally {
+    await client.end();
+  }
+}
+
+async function accountIsEnabled(stripe: Stripe, id: string): Promise<boolean> {
+  try {
+    const account = await stripe.accounts.retrieve(id);
+    return account.charges_enabled && account.payouts_enabled;
+  } catch {
+    return false;
+  }
+}
