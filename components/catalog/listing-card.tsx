@@ -19,9 +19,11 @@ export function ListingCard({ item }: { item: CatalogCard }) {
             <StateBadge label={kindLabel(item.kind, item.magneticSubtype)} />
             {item.mainsConnected ? <StateBadge label="mains-connected" tone="caution" /> : null}
           </div>
-          <h2 className="text-base font-semibold text-graphite-900">{item.title}</h2>
+          <h3 className="text-base font-semibold text-graphite-900">{item.title}</h3>
           <p className="flex items-baseline justify-between text-sm">
-            <span className="font-mono text-lg text-graphite-900">{formatMoney(item.priceMinor, item.currency)}</span>
+            <span className="font-mono text-lg text-graphite-900" data-price-minor={item.priceMinor}>
+              {formatMoney(item.priceMinor, item.currency)}
+            </span>
             <span className={item.stock > 0 ? "text-graphite-600" : "font-medium text-signal-700"}>{item.stock > 0 ? `${item.stock} in stock` : "out of stock"}</span>
           </p>
           {item.shopName ? <p className="text-xs text-graphite-600">from {item.shopName}</p> : null}

@@ -7,6 +7,7 @@ import { accounts, sessions, userRoles, users, verificationTokens } from "@/db/s
 import { env } from "@/lib/env";
 import { sendMail } from "@/lib/mail/send";
 import { SignInLinkEmail } from "@/emails/sign-in-link";
+import { mergeCartAtSignIn } from "@/lib/checkout/cart-owner";
 
 const LINK_MINUTES = 30;
 
@@ -47,6 +48,10 @@ export const { handlers, auth, signIn, signOut } = NextAuth(() => {
       },
     },
     events: {
+      // The visitor's cart (cookie) joins the member's cart; quantities add up, capped by stock.
+      async signIn({ user }) {
+        if (user.id) await mergeCartAtSignIn(user.id);
+      },
       async createUser({ user }) {
         if (user.id) await db.insert(userRoles).values({ userId: user.id, role: "member" }).onConflictDoNothing();
       },

@@ -1,5 +1,7 @@
 import "server-only";
 import { deliverMail } from "@/lib/mail/outbox";
+import { sweepCheckouts } from "@/lib/payments/checkout";
+import { enforceGracePeriods, recheckLiveListings } from "@/lib/moderation/recheck";
 import type { JobPayloads, QueueName } from "./queues";
 
 type Handler<Q extends QueueName> = (data: JobPayloads[Q]) => Promise<unknown>;
@@ -7,7 +9,15 @@ type Handler<Q extends QueueName> = (data: JobPayloads[Q]) => Promise<unknown>;
 /** What the worker does for each queue. A handler that throws is retried with back-off by pg-boss. */
 export const JOB_HANDLERS: { [Q in QueueName]?: Handler<Q> } = {
   "mail-deliver": async ({ outboxId }) => deliverMail(outboxId),
+  "checkout-sweep": async () => sweepCheckouts(),
+  "policy-recheck": async ({ revision }) => recheckLiveListings(revision),
+  "policy-enforce-grace": async () => enforceGracePeriods(),
 };
 
 /** Scheduled jobs (cron, UTC). */
-export const SCHEDULES: { queue: QueueName; cron: string }[] = [];
+export const SCHEDULES: { queue: QueueName; cron: string }[] = [
+  // Grace periods end at any time of day; ten minutes late is close enough.
+  { queue: "policy-enforce-grace", cron: "*/10 * * * *" },
+  // Holds whose expiry event never came, and transfers or refunds that failed: every minute.
+  { queue: "checkout-sweep", cron: "* * * * *" },
+];

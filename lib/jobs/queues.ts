@@ -3,6 +3,7 @@ export const QUEUES = {
   mailDeliver: "mail-deliver",
   policyRecheck: "policy-recheck",
   policyEnforceGrace: "policy-enforce-grace",
+  checkoutSweep: "checkout-sweep",
 } as const;
 
 export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
@@ -11,6 +12,7 @@ export type JobPayloads = {
   "mail-deliver": { outboxId: string };
   "policy-recheck": { revision: number };
   "policy-enforce-grace": Record<string, never>;
+  "checkout-sweep": Record<string, never>;
 };
 
 /** Retries with exponential back-off: a provider outage of an hour or so loses nothing. */

@@ -19,7 +19,7 @@ export const CURRENCIES = ["EUR", "GBP", "USD", "CHF", "SEK", "PLN"] as const;
 export type Currency = (typeof CURRENCIES)[number];
 
 export const MAX_PHOTOS = 8;
-export const MAX_DOCUMENTS = 10;
+export const MAX_DOCUMENTS = 8;
 export const MAX_STOCK = 10_000;
 // Every currency above has two minor digits (ISO 4217); a currency without them would need its own rule here.
 const MINOR_DIGITS = 2;

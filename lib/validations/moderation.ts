@@ -109,14 +109,14 @@ export const publishPolicySchema = z.object({
 export type PublishPolicyInput = z.output<typeof publishPolicySchema>;
 export type PublishPolicyField = "summary" | "minWords" | "safeVoltageV" | "storedChargeThresholdMicroC" | "waitMarginFactor" | "graceDays" | `topicMinWords.${(typeof SAFETY_TOPIC_KEYS)[number]}`;
 
-/** Reads the send-back form: one topic select and one text per reason row (`reasonTopic`, `reasonText`). */
+/**
+ * Reads the send-back form: one topic select and one text per reason row (`reasonTopic`, `reasonText`).
+ * Rows are kept as they are, blank ones included, so field errors ("reasons.1.text") line up with the rows on screen.
+ */
 export function reasonsFromForm(formData: FormData): { topic: string; text: string }[] {
   const topics = formData.getAll("reasonTopic").map(String);
   const texts = formData.getAll("reasonText").map(String);
-  return topics
-    .map((topic, i) => ({ topic, text: texts[i] ?? "" }))
-    // A row left entirely empty is not a reason; a row with only one half is, and fails validation.
-    .filter((r) => r.topic !== "" || r.text.trim() !== "");
+  return topics.map((topic, i) => ({ topic, text: texts[i] ?? "" }));
 }
 
 /** Reads the policy form; field names match publishPolicySchema, per-topic fields are `topicMinWords.<topic>`. */

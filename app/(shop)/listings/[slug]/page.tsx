@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { MainsCaution } from "@/components/caution";
+import { AddToCartForm } from "@/components/cart/add-to-cart-form";
 import { Markdown } from "@/components/markdown";
 import { SafetySheetView } from "@/components/safety/safety-sheet-view";
 import { Alert } from "@/components/ui/alert";
@@ -9,6 +10,10 @@ import { Figure } from "@/components/ui/figure";
 import { Panel } from "@/components/ui/panel";
 import { StateBadge } from "@/components/ui/state-badge";
 import { Table, TBody, TD, TH, THead, TRow } from "@/components/ui/table";
+import { Suspense } from "react";
+import { ListingFits } from "@/components/catalog/listing-fits";
+import { MagneticDerivedFigures } from "@/components/catalog/magnetic-derived-figures";
+import { SkeletonText } from "@/components/ui/skeleton";
 import { getPublicListing } from "@/db/queries/catalog";
 import { currentPolicyRevision } from "@/db/queries/policy";
 import { env } from "@/lib/env";
@@ -83,6 +88,7 @@ export default async function ListingPage({ params }: Props) {
             {forSale ? (listing.stock > 0 ? `${listing.stock} in stock` : "Out of stock") : "Not for sale"} · ships at{" "}
             <Figure value={listing.shippingWeightG / 1000} unit="kg" prefixes={false} />
           </p>
+          {forSale && listing.stock > 0 ? <AddToCartForm listingId={listing.id} stock={listing.stock} /> : null}
           <p className="text-sm text-graphite-700">
             Sold by <strong>{data.shopName ?? data.sellerName}</strong>
             {data.country ? ` (${data.country})` : ""}; returns within {data.returnsWindowDays ?? 30} days.
@@ -144,6 +150,13 @@ export default async function ListingPage({ params }: Props) {
           </ul>
         </Panel>
       ) : null}
+
+      {/* Catalog: derived figures of a magnetic, and which kits and magnetics fit each other. */}
+      {listing.kind === "magnetic" && listing.magneticSubtype ? <MagneticDerivedFigures subtype={listing.magneticSubtype} figures={listing.figures} /> : null}
+      <Suspense fallback={<SkeletonText lines={2} />}>
+        <ListingFits listingId={listing.id} kind={listing.kind} />
+      </Suspense>
+      {/* End of the catalog's sections. */}
 
       {data.documents.length > 0 ? (
         <Panel title="Documents">
