@@ -8,6 +8,7 @@ export function navLinksFor(user: SessionUser | null): NavLink[] {
   const links: NavLink[] = [
     { href: "/catalog", label: "Catalog" },
     { href: "/workbench", label: "Workbench" },
+    { href: "/cart", label: "Cart" },
   ];
   const areas: { role: Role; link: NavLink }[] = [
     { role: "seller", link: { href: "/sell", label: "Seller desk" } },

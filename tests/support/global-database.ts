@@ -13,13 +13,14 @@ export default async function setup() {
     { dataDir: path.join(root, ".data", "pg-vitest"), port: TEST_PORTS.db + 10, database: "postgres" },
   );
   const admin = withDatabase(server.url, "postgres");
-  const template = "fluxyard_template";
+  // Each standalone run has its own template, so runs side by side never drop each other's.
+  const template = `fluxyard_template_${process.pid}`;
   await dropDatabase(admin, template);
   await createDatabaseIfMissing(admin, template);
   await applyMigrations(withDatabase(admin, template));
   process.env.TEST_PG_ADMIN_URL = admin;
   process.env.TEST_PG_TEMPLATE = template;
   return async () => {
-    await server.stop();
+    await dropDatabase(admin, template).catch(() => {});
   };
 }
