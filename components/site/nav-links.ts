@@ -11,8 +11,12 @@ export function navLinksFor(user: SessionUser | null): NavLink[] {
     { href: "/cart", label: "Cart" },
   ];
   const areas: { role: Role; link: NavLink }[] = [
+    { role: "member", link: { href: "/orders", label: "Orders" } },
     { role: "seller", link: { href: "/sell", label: "Seller desk" } },
+    { role: "moderator", link: { href: "/moderate", label: "Moderation" } },
     { role: "admin", link: { href: "/admin/users", label: "People & roles" } },
+    { role: "admin", link: { href: "/admin/policy", label: "Policy" } },
+    { role: "admin", link: { href: "/admin/fee", label: "Fee" } },
   ];
   for (const { role, link } of areas) if (hasRole(user, role)) links.push(link);
   return links;

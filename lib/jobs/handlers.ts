@@ -2,6 +2,7 @@ import "server-only";
 import { deliverMail } from "@/lib/mail/outbox";
 import { sweepCheckouts } from "@/lib/payments/checkout";
 import { enforceGracePeriods, recheckLiveListings } from "@/lib/moderation/recheck";
+import { settlePendingRefunds } from "@/db/queries/orders";
 import type { JobPayloads, QueueName } from "./queues";
 
 type Handler<Q extends QueueName> = (data: JobPayloads[Q]) => Promise<unknown>;
@@ -12,6 +13,7 @@ export const JOB_HANDLERS: { [Q in QueueName]?: Handler<Q> } = {
   "checkout-sweep": async () => sweepCheckouts(),
   "policy-recheck": async ({ revision }) => recheckLiveListings(revision),
   "policy-enforce-grace": async () => enforceGracePeriods(),
+  "refunds-settle": async () => settlePendingRefunds(),
 };
 
 /** Scheduled jobs (cron, UTC). */
@@ -20,4 +22,6 @@ export const SCHEDULES: { queue: QueueName; cron: string }[] = [
   { queue: "policy-enforce-grace", cron: "*/10 * * * *" },
   // Holds whose expiry event never came, and transfers or refunds that failed: every minute.
   { queue: "checkout-sweep", cron: "* * * * *" },
+  // Refunds the payment provider did not answer are asked again with the same idempotency key.
+  { queue: "refunds-settle", cron: "*/5 * * * *" },
 ];

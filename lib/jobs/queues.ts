@@ -4,6 +4,7 @@ export const QUEUES = {
   policyRecheck: "policy-recheck",
   policyEnforceGrace: "policy-enforce-grace",
   checkoutSweep: "checkout-sweep",
+  refundsSettle: "refunds-settle",
 } as const;
 
 export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
@@ -13,6 +14,7 @@ export type JobPayloads = {
   "policy-recheck": { revision: number };
   "policy-enforce-grace": Record<string, never>;
   "checkout-sweep": Record<string, never>;
+  "refunds-settle": Record<string, never>;
 };
 
 /** Retries with exponential back-off: a provider outage of an hour or so loses nothing. */

@@ -1,0 +1,5 @@
+import { listingActionRoute } from "@/lib/moderation/listing-route";
+
+export const dynamic = "force-dynamic";
+
+export const POST = listingActionRoute("send_back");

@@ -1,0 +1,211 @@
+"use client";
+
+import { keepPreviousData, useQuery } from "@tanstack/react-query";
+import { usePathname, useRouter, useSearchParams } from "next/navigation";
+import { useEffect, useRef, useState, type FormEvent } from "react";
+import type { CatalogResult } from "@/db/queries/catalog";
+import { Button } from "@/components/ui/button";
+import { EmptyState } from "@/components/ui/empty-state";
+import { ErrorState } from "@/components/ui/error-state";
+import { SelectField, TextField } from "@/components/ui/field";
+import { catalogSearchString, effectiveSort, lenientCatalogQuery, type CatalogQuery, type CatalogSort } from "@/lib/validations/catalog";
+import { CatalogFilters, hasFilters, type CatalogSeller, type FilterPatch } from "./catalog-filters";
+import { CatalogPagination } from "./catalog-pagination";
+import { fetchCatalog } from "./fetch-catalog";
+import { ListingCard } from "./listing-card";
+import { useDebouncedValue } from "./use-debounced-value";
+
+const TYPING_PAUSE_MS = 250;
+
+const SORT_LABELS: Record<CatalogSort, string> = {
+  relevance: "Best match",
+  newest: "Newest first",
+  "price-asc": "Price, low to high",
+  "price-desc": "Price, high to low",
+};
+
+export type CatalogBrowserProps = {
+  initialQuery: CatalogQuery;
+  /** the server-rendered first page, so the first paint has results and no loading flash */
+  initialResult: CatalogResult;
+  sellers: readonly CatalogSeller[];
+};
+
+/**
+ * The catalog's search, filters, sort and pages. The query lives in the URL: every change
+ * replaces it (no new history entry, no scroll, no page load), so a reload or a shared link
+ * shows the same results; results come from GET /api/listings while the previous ones stay on
+ * screen.
+ */
+export function CatalogBrowser({ initialQuery, initialResult, sellers }: CatalogBrowserProps) {
+  const pathname = usePathname();
+  const router = useRouter();
+  const urlSearch = useSearchParams().toString();
+  const initialSearch = catalogSearchString(initialQuery);
+  const queryInUrl = () => lenientCatalogQuery(new URLSearchParams(urlSearch)).query;
+
+  // Normally the URL and the server's query agree. Going back to this page can restore the
+  // server's earlier render under a later URL; then the URL is the truth.
+  const [query, setQuery] = useState<CatalogQuery>(() => {
+    const fromUrl = queryInUrl();
+    return catalogSearchString(fromUrl) === initialSearch ? initialQuery : fromUrl;
+  });
+  const [text, setText] = useState(query.q ?? "");
+  const resultsRef = useRef<HTMLHeadingElement>(null);
+
+  const settledText = useDebouncedValue(text, TYPING_PAUSE_MS);
+  useEffect(() => {
+    const q = settledText.trim() || undefined;
+    setQuery((prev) => (prev.q === q ? prev : { ...prev, q, page: undefined }));
+  }, [settledText]);
+
+  const search = catalogSearchString(query);
+  const results = useQuery({
+    queryKey: ["catalog", search],
+    queryFn: ({ signal }) => fetchCatalog(search, signal),
+    placeholderData: keepPreviousData,
+    initialData: search === initialSearch ? initialResult : undefined,
+  });
+
+  // Replacing, not pushing: refining a search is not a step to go back through. The router
+  // renders the page again for each new URL; those renders can land after the person has typed
+  // on, so the URLs we asked for are remembered and not read back as a new search.
+  const requested = useRef<string[]>([]);
+  useEffect(() => {
+    if (window.location.search.replace(/^\?/, "") === search) return;
+    requested.current.push(search);
+    router.replace(search ? `${pathname}?${search}` : pathname, { scroll: false });
+  }, [search, pathname, router]);
+
+  // A URL we did not ask for (a link to /catalog?kind=kit, the header's Catalog link) is a new search.
+  useEffect(() => {
+    const next = queryInUrl();
+    const canonical = catalogSearchString(next);
+    const ours = requested.current.indexOf(canonical);
+    if (ours >= 0) {
+      requested.current.splice(0, ours + 1);
+      return;
+    }
+    if (canonical === search) return;
+    setQuery(next);
+    setText(next.q ?? "");
+    // Only a change of URL is news; the query moving on is not.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [urlSearch]);
+
+  const update = (patch: FilterPatch) => setQuery((prev) => ({ ...prev, ...patch, page: undefined }));
+  const clearFilters = () => setQuery((prev) => ({ q: prev.q, sort: prev.sort }));
+  const goToPage = (page: number) => {
+    setQuery((prev) => ({ ...prev, page }));
+    resultsRef.current?.scrollIntoView({ block: "start" });
+  };
+  const searchNow = (event: FormEvent) => {
+    // Enter searches at once instead of waiting for the pause.
+    event.preventDefault();
+    const q = text.trim() || undefined;
+    setQuery((prev) => (prev.q === q ? prev : { ...prev, q, page: undefined }));
+  };
+
+  const data = results.data ?? initialResult;
+  const pages = Math.max(1, Math.ceil(data.total / data.pageSize));
+  const updating = results.isFetching && results.isPlaceholderData;
+  const sort = effectiveSort(query);
+  const hrefFor = (page: number) => {
+    const s = catalogSearchString({ ...query, page });
+    return s ? `${pathname}?${s}` : pathname;
+  };
+
+  return (
+    <div className="grid gap-8 lg:grid-cols-[16rem_1fr]">
+      <aside aria-label="Filters" className="lg:order-1">
+        <CatalogFilters query={query} sellers={sellers} onChange={update} onClear={clearFilters} />
+      </aside>
+
+      <div className="min-w-0 space-y-5 lg:order-2">
+        <div className="flex flex-wrap items-end gap-4">
+          <form role="search" aria-label="Catalog" onSubmit={searchNow} action={pathname} className="min-w-64 flex-1">
+            <TextField
+              label="Search the catalog"
+              name="q"
+              type="search"
+              value={text}
+              onChange={(e) => setText(e.target.value)}
+              placeholder="e.g. output choke 20 µH"
+              autoComplete="off"
+              spellCheck={false}
+            />
+          </form>
+          <div className="w-52">
+            <SelectField
+              label="Sort by"
+              value={sort}
+              onChange={(e) => setQuery((prev) => ({ ...prev, sort: e.target.value as CatalogSort, page: undefined }))}
+              options={(Object.keys(SORT_LABELS) as CatalogSort[]).map((s) => ({
+                value: s,
+                label: SORT_LABELS[s],
+                // Without words to match there is nothing to rank by.
+                disabled: s === "relevance" && !query.q,
+              }))}
+            />
+          </div>
+        </div>
+
+        <div className="flex flex-wrap items-baseline justify-between gap-2">
+          <h2 ref={resultsRef} className="scroll-mt-4 text-lg font-semibold text-graphite-900">
+            Results
+          </h2>
+          <p role="status" aria-live="polite" aria-atomic="true" className="text-sm text-graphite-700" data-testid="catalog-count">
+            {countText(data.total, query.q)}
+            {pages > 1 ? `, page ${data.page} of ${pages}` : ""}
+            {updating ? <span className="ml-2 text-graphite-500">Updating…</span> : null}
+          </p>
+        </div>
+
+        {results.isError && !results.isFetching ? (
+          <ErrorState
+            title="The results could not be updated"
+            action={
+              <Button variant="secondary" onClick={() => void results.refetch()}>
+                Try again
+              </Button>
+            }
+          >
+            The list below may be out of date. Check your connection and try again.
+          </ErrorState>
+        ) : null}
+
+        {data.items.length === 0 ? (
+          <EmptyState
+            title="Nothing matches"
+            action={
+              hasFilters(query) ? (
+                <Button variant="secondary" onClick={clearFilters}>
+                  Clear filters
+                </Button>
+              ) : undefined
+            }
+          >
+            {query.q ? "Try fewer words, another spelling, or fewer filters." : "No live listing matches these filters."}
+          </EmptyState>
+        ) : (
+          <ul
+            className={`grid gap-5 transition-opacity sm:grid-cols-2 xl:grid-cols-3 ${updating ? "opacity-60" : ""}`}
+            aria-busy={updating}
+            data-testid="catalog-results"
+          >
+            {data.items.map((item) => (
+              <ListingCard key={item.id} item={item} />
+            ))}
+          </ul>
+        )}
+
+        <CatalogPagination page={data.page} pages={pages} hrefFor={hrefFor} onPage={goToPage} />
+      </div>
+    </div>
+  );
+}
+
+function countText(total: number, q: string | undefined): string {
+  const count = total === 0 ? "No listings" : total === 1 ? "1 listing" : `${total} listings`;
+  return q ? `${count} for “${q}”` : count;
+}

@@ -1,0 +1,13 @@
+"use client";
+
+import { useEffect, useState } from "react";
+
+/** The value once it has stopped changing for `delayMs`; typing fetches once per pause, not per key. */
+export function useDebouncedValue<T>(value: T, delayMs: number): T {
+  const [settled, setSettled] = useState(value);
+  useEffect(() => {
+    const timer = setTimeout(() => setSettled(value), delayMs);
+    return () => clearTimeout(timer);
+  }, [value, delayMs]);
+  return settled;
+}
