@@ -6,3 +6,6 @@ export * from "./listings";
 export * from "./moderation";
 export * from "./mail";
 export * from "./orders";
+export * from "./bench";
+export * from "./qa";
+export * from "./reviews";
