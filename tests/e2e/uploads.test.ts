@@ -243,8 +243,12 @@ describe("the uploader components in Chromium", () => {
     const hidden = await photos.locator('input[type="hidden"][name="photos"]').inputValue();
     expect((JSON.parse(hidden) as { key: string }[]).map((p) => p.key)).toEqual(swapped.map((p) => p.key));
 
+    // Dragging the second photo onto the first puts it back in front.
+    await items.nth(1).dragTo(items.nth(0));
+    await expect.poll(async () => (await values()).photos.map((p) => p.key)).toEqual(before.map((p) => p.key));
+
     await s.page.getByRole("button", { name: "Remove photo 1" }).click();
-    expect((await values()).photos.map((p) => p.key)).toEqual([before[0]?.key]);
+    expect((await values()).photos.map((p) => p.key)).toEqual([before[1]?.key]);
 
     const documents = s.page.getByTestId("document-uploader");
     await s.page.getByLabel("Add PDFs to documents").setInputFiles([

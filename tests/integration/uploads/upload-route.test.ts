@@ -290,3 +290,23 @@ describe("upload queries", () => {
     expect((await uploadRows()).some((r) => r.key === builders[0])).toBe(false);
   });
 });
+
+describe("discardUpload", () => {
+  it("removes the owner's photo row, the stored photo and its thumbnail; refuses anyone else", async () => {
+    const { discardUpload } = await import("@/lib/uploads/discard");
+    const data = serverData(await uploadOne(app.url, "listingPhoto", { name: "spare.png", type: "image/png", bytes: await plainPng() }, SELLER));
+    if (!data.ok) throw new Error(data.message);
+    const { rows } = await pool.query("select thumb_key from uploads where key = $1", [data.key]);
+    const thumbKey = rows[0]?.thumb_key as string;
+    expect((await storedKeys())).toEqual(expect.arrayContaining([data.key, thumbKey]));
+
+    expect(await discardUpload({ key: data.key, ownerId: BUILDER })).toBe(false);
+    expect((await uploadRows()).some((r) => r.key === data.key)).toBe(true);
+
+    expect(await discardUpload({ key: data.key, ownerId: SELLER })).toBe(true);
+    expect((await uploadRows()).some((r) => r.key === data.key)).toBe(false);
+    const keys = await storedKeys();
+    expect(keys).not.toContain(data.key);
+    expect(keys).not.toContain(thumbKey);
+  });
+});
