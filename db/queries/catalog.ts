@@ -40,7 +40,7 @@ export type CatalogSearch = CatalogQuery & { pageSize?: number };
 // long title ("choek" vs a 40-character title scores under 0.1), so `title % q` misses typos.
 const TYPO_THRESHOLD = 0.3;
 
-// 0004 adds these outside the Drizzle schema.
+// Migration 0004 adds this column outside the Drizzle schema.
 const searchVector = sql`${listings}.search_vector`;
 
 // The column stems title and description with 'english' but keeps figures as 'simple' words

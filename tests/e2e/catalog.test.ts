@@ -261,6 +261,10 @@ describe("the catalog in Chromium", () => {
     expect(await page.getByLabel("Kind").inputValue()).toBe("kit");
     const api = await page.request.get("/api/listings?sort=cheapest");
     expect(api.status()).toBe(422);
+    // The production server keeps the route's own caching header (RFC 9111 §5.2.2).
+    const ok = await page.request.get("/api/listings?kind=kit");
+    expect(ok.status()).toBe(200);
+    expect(ok.headers()["cache-control"]).toMatch(/^public, max-age=5\b/);
     expect((await api.json()).fieldErrors.sort).toEqual(expect.any(Array));
   });
 

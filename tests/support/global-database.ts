@@ -10,7 +10,8 @@ export default async function setup() {
   const root = path.resolve(import.meta.dirname, "../..");
   const server = await startDatabase(
     // Its own cluster, so a vitest run beside `npm test` never shares one with it.
-    { dataDir: path.join(root, ".data", "pg-vitest"), port: TEST_PORTS.db + 10, database: "postgres" },
+    // (An even port: test slots use odd ones above TEST_PORTS.db.)
+    { dataDir: path.join(root, ".data", "pg-standalone"), port: TEST_PORTS.db - 1, database: "postgres" },
   );
   const admin = withDatabase(server.url, "postgres");
   // Each standalone run has its own template, so runs side by side never drop each other's.

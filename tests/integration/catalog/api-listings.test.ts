@@ -2,7 +2,6 @@
 // Status codes follow RFC 9110 (422 Unprocessable Content for a well-formed request with invalid
 // values) and the project's JSON error shape in lib/http/json.ts.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { seedDemo } from "@/db/seed";
 import { freshDatabase } from "../../support/test-database";
 import { insertCatalogFixtures, LIVE } from "./fixtures";
 
@@ -11,7 +10,6 @@ let GET: (request: Request) => Promise<Response>;
 
 beforeAll(async () => {
   database = await freshDatabase("catalog_api");
-  await seedDemo(database.url);
   await insertCatalogFixtures(database.url);
   process.env.DATABASE_URL = database.url;
   ({ GET } = await import("@/app/api/listings/route"));

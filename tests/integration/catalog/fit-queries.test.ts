@@ -3,7 +3,6 @@
 // expected answers are the worked example of the brief (a 22 µH / 120 A choke fits "≥ 18 µH at
 // 110 A", not "≥ 30 µH") and, for a grid of edge cases, the pure rule in lib/listings/fit.ts.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { seedDemo } from "@/db/seed";
 import { fitsRequirement, type KitRequirement } from "@/lib/listings/fit";
 import { freshDatabase } from "../../support/test-database";
 import { FIXTURES, insertCatalogFixtures, type Fixture } from "./fixtures";
@@ -62,7 +61,6 @@ let catalog: typeof import("@/db/queries/catalog");
 
 beforeAll(async () => {
   database = await freshDatabase("catalog_fit");
-  await seedDemo(database.url);
   ids = await insertCatalogFixtures(database.url, EXTRA);
   process.env.DATABASE_URL = database.url;
   catalog = await import("@/db/queries/catalog");

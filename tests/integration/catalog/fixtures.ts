@@ -7,9 +7,10 @@ import * as schema from "@/db/schema";
 import type { ListingKind, ListingState, MagneticSubtype } from "@/db/schema/listings";
 import type { SafetyDeclaration } from "@/lib/policy";
 
+// Sellers of their own rather than the demo seed's, so what the seed holds never changes a count here.
 export const SHOPS = {
-  coils: { userId: "demo-seller-magnetics", shopName: "Larkspur Coil Room", slug: "larkspur-coil-room" },
-  boards: { userId: "demo-seller-kits", shopName: "Yard Kitworks", slug: "yard-kitworks" },
+  coils: { userId: "catalog-seller-coils", name: "Wren Halvorsen-Abara", shopName: "Larkspur Coil Room", slug: "larkspur-coil-room" },
+  boards: { userId: "catalog-seller-boards", name: "Tobiah Ferreira-Lund", shopName: "Yard Kitworks", slug: "yard-kitworks" },
 } as const;
 type ShopKey = keyof typeof SHOPS;
 
@@ -121,6 +122,7 @@ export async function insertCatalogFixtures(url: string, extra: Fixture[] = []):
   const pool = new pg.Pool({ connectionString: url, max: 2 });
   const db = drizzle(pool, { schema });
   try {
+    await db.insert(schema.users).values(Object.values(SHOPS).map((s) => ({ id: s.userId, email: `${s.userId}@catalog.test`, name: s.name })));
     await db.insert(schema.sellerProfiles).values(
       Object.values(SHOPS).map((s) => ({
         userId: s.userId,

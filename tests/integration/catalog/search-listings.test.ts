@@ -1,7 +1,6 @@
 // searchListings against the real PostgreSQL full-text search and pg_trgm. Expected sets come
 // from the fixture table itself (filtered in plain TypeScript), never from the query under test.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { seedDemo } from "@/db/seed";
 import { freshDatabase } from "../../support/test-database";
 import { FIXTURES, insertCatalogFixtures, LIVE, SHOPS, type Fixture } from "./fixtures";
 
@@ -11,7 +10,6 @@ let catalog: Catalog;
 
 beforeAll(async () => {
   database = await freshDatabase("catalog_search");
-  await seedDemo(database.url);
   await insertCatalogFixtures(database.url);
   process.env.DATABASE_URL = database.url;
   catalog = await import("@/db/queries/catalog");
