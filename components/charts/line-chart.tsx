@@ -287,7 +287,9 @@ export function LineChart({
       ) : null}
       {caption != null ? <figcaption className="mt-2 text-sm text-graphite-600">{caption}</figcaption> : null}
 
-      <table className="sr-only">
+      {/* A table will not shrink to the 1 px of .sr-only and widens the page; its wrapper does. */}
+      <div className="sr-only">
+      <table>
         <caption>Data of the chart: {title}</caption>
         <thead>
           <tr>
@@ -308,6 +310,7 @@ export function LineChart({
           )}
         </tbody>
       </table>
+      </div>
       {markers.length > 0 ? (
         <p className="sr-only">Marked on the chart: {markers.map((m) => m.label).join("; ")}.</p>
       ) : null}

@@ -144,7 +144,7 @@ export function ListingForm({ listingId, initial, state, payoutReady }: ListingF
           ) : null}
         </div>
       </div>
-      <aside aria-label="Live safety check" className="min-w-0">
+      <aside aria-label="Live safety check" className="min-w-0 lg:sticky lg:top-4 lg:self-start">
         <LiveCheckPanel state={check} />
       </aside>
     </form>

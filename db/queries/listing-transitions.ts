@@ -70,84 +70,82 @@ export async function transitionListingInTx(
   tx: Tx,
   input: TransitionInput,
 ): Promise<{ result: { from: ListingState; to: ListingState }; mailIds: string[] }> {
-  {
-    const [listing] = await tx.select().from(listings).where(eq(listings.id, input.listingId)).for("update");
-    if (!listing) throw new TransitionError(404, "No such listing.");
-    const plan = planTransition({ listing, action: input.action, actor: input.actor, reasons: input.reasons, note: input.note });
-    if (!plan.ok) throw new TransitionError(plan.status, plan.message);
+  const [listing] = await tx.select().from(listings).where(eq(listings.id, input.listingId)).for("update");
+  if (!listing) throw new TransitionError(404, "No such listing.");
+  const plan = planTransition({ listing, action: input.action, actor: input.actor, reasons: input.reasons, note: input.note });
+  if (!plan.ok) throw new TransitionError(plan.status, plan.message);
 
-    const revision = await currentPolicyRevision(tx);
-    const check = checkSafetySheet({ declaration: listing.declaration, notes: listing.safetyNotes, revision });
-    const goesLiveOrToReview = plan.to === "in_review" || plan.to === "live";
-    if (goesLiveOrToReview && check.status !== "clear") {
-      const why =
-        check.status === "blocked"
-          ? "The safety check blocks this listing: it cannot be sold as declared."
-          : "The safety sheet is not complete for the current policy.";
-      throw new TransitionError(409, `${why} ${check.findings.map((f) => f.message).join(" ")}`.trim(), check);
-    }
-    if (plan.to === "in_review") await assertReadyForReview(tx, listing);
-
-    const now = new Date();
-    const actorId = input.actor.kind === "user" ? input.actor.id : null;
-    const message = input.reasons?.length
-      ? input.reasons.map((r) => `${topicLabel(r.topic as never) ?? r.topic}: ${r.text}`).join("\n")
-      : (input.note ?? null);
-    await tx
-      .update(listings)
-      .set({
-        state: plan.to,
-        updatedAt: now,
-        policyRevision: revision.revision,
-        policyStatus: check.status,
-        ...(plan.to === "in_review" ? { submittedAt: now } : {}),
-        ...(plan.to === "live" ? { liveAt: now, graceUntil: null } : {}),
-        ...(["sent_back", "held"].includes(plan.to) || plan.decision === "approved" || plan.decision === "restored" ? { moderatorMessage: message } : {}),
-      })
-      .where(eq(listings.id, listing.id));
-
-    await tx.insert(listingDecisions).values({
-      listingId: listing.id,
-      actorId,
-      decision: plan.decision,
-      reasons: input.reasons ?? [],
-      note: input.note ?? null,
-      policyRevision: revision.revision,
-    });
-    await tx.insert(auditLog).values({
-      actorId,
-      action: `listing.${plan.decision}`,
-      subjectType: "listing",
-      subjectId: listing.id,
-      reason: message,
-      details: { from: plan.from, to: plan.to, policyRevision: revision.revision, policyStatus: check.status, reasons: input.reasons ?? [] },
-    });
-    if (plan.decision === "approved") {
-      await tx.insert(listingVersions).values({ listingId: listing.id, snapshot: await snapshotListing(tx, listing), approvedBy: actorId });
-    }
-
-    const mailIds: string[] = [];
-    const mail = MAILS[plan.decision as keyof typeof MAILS];
-    if (mail) {
-      const [seller] = await tx.select({ email: users.email, name: users.name }).from(users).where(eq(users.id, listing.sellerId));
-      if (seller?.email) {
-        mailIds.push(
-          await enqueueMail(tx, {
-            template: mail,
-            to: seller.email,
-            props: {
-              sellerName: seller.name ?? seller.email,
-              listingTitle: listing.title,
-              listingUrl: `${env().APP_URL}/sell/listings/${listing.id}`,
-              reasons: (input.reasons ?? []).map((r) => ({ topicLabel: topicLabel(r.topic as never) ?? r.topic, text: r.text })),
-              note: input.note ?? null,
-            },
-          }),
-        );
-      }
-    }
-    return { result: { from: plan.from, to: plan.to }, mailIds };
+  const revision = await currentPolicyRevision(tx);
+  const check = checkSafetySheet({ declaration: listing.declaration, notes: listing.safetyNotes, revision });
+  const goesLiveOrToReview = plan.to === "in_review" || plan.to === "live";
+  if (goesLiveOrToReview && check.status !== "clear") {
+    const why =
+      check.status === "blocked"
+        ? "The safety check blocks this listing: it cannot be sold as declared."
+        : "The safety sheet is not complete for the current policy.";
+    throw new TransitionError(409, `${why} ${check.findings.map((f) => f.message).join(" ")}`.trim(), check);
   }
+  if (plan.to === "in_review") await assertReadyForReview(tx, listing);
+
+  const now = new Date();
+  const actorId = input.actor.kind === "user" ? input.actor.id : null;
+  const message = input.reasons?.length
+    ? input.reasons.map((r) => `${topicLabel(r.topic as never) ?? r.topic}: ${r.text}`).join("\n")
+    : (input.note ?? null);
+  await tx
+    .update(listings)
+    .set({
+      state: plan.to,
+      updatedAt: now,
+      policyRevision: revision.revision,
+      policyStatus: check.status,
+      ...(plan.to === "in_review" ? { submittedAt: now } : {}),
+      ...(plan.to === "live" ? { liveAt: now, graceUntil: null } : {}),
+      ...(["sent_back", "held"].includes(plan.to) || plan.decision === "approved" || plan.decision === "restored" ? { moderatorMessage: message } : {}),
+    })
+    .where(eq(listings.id, listing.id));
+
+  await tx.insert(listingDecisions).values({
+    listingId: listing.id,
+    actorId,
+    decision: plan.decision,
+    reasons: input.reasons ?? [],
+    note: input.note ?? null,
+    policyRevision: revision.revision,
+  });
+  await tx.insert(auditLog).values({
+    actorId,
+    action: `listing.${plan.decision}`,
+    subjectType: "listing",
+    subjectId: listing.id,
+    reason: message,
+    details: { from: plan.from, to: plan.to, policyRevision: revision.revision, policyStatus: check.status, reasons: input.reasons ?? [] },
+  });
+  if (plan.decision === "approved") {
+    await tx.insert(listingVersions).values({ listingId: listing.id, snapshot: await snapshotListing(tx, listing), approvedBy: actorId });
+  }
+
+  const mailIds: string[] = [];
+  const mail = MAILS[plan.decision as keyof typeof MAILS];
+  if (mail) {
+    const [seller] = await tx.select({ email: users.email, name: users.name }).from(users).where(eq(users.id, listing.sellerId));
+    if (seller?.email) {
+      mailIds.push(
+        await enqueueMail(tx, {
+          template: mail,
+          to: seller.email,
+          props: {
+            sellerName: seller.name ?? seller.email,
+            listingTitle: listing.title,
+            listingUrl: `${env().APP_URL}/sell/listings/${listing.id}`,
+            reasons: (input.reasons ?? []).map((r) => ({ topicLabel: topicLabel(r.topic as never) ?? r.topic, text: r.text })),
+            note: input.note ?? null,
+          },
+        }),
+      );
+    }
+  }
+  return { result: { from: plan.from, to: plan.to }, mailIds };
 }
 
 async function assertReadyForReview(tx: Tx, listing: Listing): Promise<void> {

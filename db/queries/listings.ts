@@ -223,27 +223,27 @@ export async function createListingDraft(sellerId: string, input: ListingDraft):
 
 async function reviewedContentOf(tx: Tx, listing: Listing): Promise<ReviewedContent> {
   const checkpoints = await tx
-      .select({
-        stage: listingCheckpoints.stage,
-        name: listingCheckpoints.name,
-        measure: listingCheckpoints.measure,
-        unit: listingCheckpoints.unit,
-        expectedMin: listingCheckpoints.expectedMin,
-        expectedMax: listingCheckpoints.expectedMax,
-      })
-      .from(listingCheckpoints)
-      .where(eq(listingCheckpoints.listingId, listing.id))
-      .orderBy(asc(listingCheckpoints.position));
+    .select({
+      stage: listingCheckpoints.stage,
+      name: listingCheckpoints.name,
+      measure: listingCheckpoints.measure,
+      unit: listingCheckpoints.unit,
+      expectedMin: listingCheckpoints.expectedMin,
+      expectedMax: listingCheckpoints.expectedMax,
+    })
+    .from(listingCheckpoints)
+    .where(eq(listingCheckpoints.listingId, listing.id))
+    .orderBy(asc(listingCheckpoints.position));
   const requirements = await tx
-      .select({
-        subtype: listingRequirements.subtype,
-        label: listingRequirements.label,
-        minInductanceH: listingRequirements.minInductanceH,
-        atCurrentA: listingRequirements.atCurrentA,
-      })
-      .from(listingRequirements)
-      .where(eq(listingRequirements.listingId, listing.id))
-      .orderBy(asc(listingRequirements.id));
+    .select({
+      subtype: listingRequirements.subtype,
+      label: listingRequirements.label,
+      minInductanceH: listingRequirements.minInductanceH,
+      atCurrentA: listingRequirements.atCurrentA,
+    })
+    .from(listingRequirements)
+    .where(eq(listingRequirements.listingId, listing.id))
+    .orderBy(asc(listingRequirements.id));
   return {
     magneticSubtype: listing.magneticSubtype,
     figures: listing.figures,

@@ -16,9 +16,11 @@ import { signInThroughOutbox } from "./support/sign-in";
 import { DEMO_ACCOUNTS } from "../../db/seed-data";
 
 const bram = DEMO_ACCOUNTS.find((a) => a.id === "demo-seller-kits")!;
+const idunn = DEMO_ACCOUNTS.find((a) => a.id === "demo-seller-magnetics")!;
 const PAYMENTS_URL = process.env.E2E_PAYMENTS_URL ?? "http://127.0.0.1:4120";
 
 let scratch: string;
+let bramsListingId: string | undefined;
 let photoFile: string;
 
 beforeAll(async () => {
@@ -30,8 +32,8 @@ beforeAll(async () => {
   await client.connect();
   try {
     await client.query(
-      "update seller_profiles set payout_account_id = null, charges_enabled = false, payouts_enabled = false where user_id = $1",
-      [bram.id],
+      "update seller_profiles set payout_account_id = null, charges_enabled = false, payouts_enabled = false where user_id = any($1)",
+      [[bram.id, idunn.id]],
     );
   } finally {
     await client.end();
@@ -89,17 +91,6 @@ describe("a seller lists a kit", () => {
     const panel = page.getByTestId("payout-panel");
     await panel.waitFor();
 
-    // The demo seller holds the role but has no shop yet (unless another browser test opened one).
-    if ((await panel.getAttribute("data-status")) === "no-shop") {
-      await panel.getByRole("link", { name: "Open your shop" }).click();
-      await page.getByLabel("Shop name").fill("Oyelaran Boards");
-      await page.getByLabel("Profile", { exact: true }).fill("Inverter boards and kits, designed and tested on the yard's bench.");
-      await page.getByLabel("Country you ship from").selectOption("NL");
-      await page.getByLabel("Returns policy", { exact: true }).fill("Unused boards come back within 30 days for a full refund.");
-      await page.getByRole("button", { name: "Open the shop" }).click();
-      await page.waitForURL(/\/sell$/);
-    }
-
     await expect.poll(() => panel.getAttribute("data-status")).toBe("none");
     await page.goto("/sell/listings/new?kind=kit");
     // Without payouts a seller may draft but not submit, and the form says so.
@@ -138,6 +129,7 @@ describe("a seller lists a kit", () => {
     const profile = page.getByTestId("live-hazard-profile");
     await expect.poll(() => profile.textContent()).toContain("358 V"); // √2 · 230 V · 1.1
     expect(await profile.textContent()).toContain("43.5 J"); // ½ · 680 µF · (357.8 V)² = 43.52 J
+    expect(await page.getByTestId("discharge-time").textContent()).toBe("122 s"); // 100 kΩ · 680 µF · ln(357.8 / 60), rounded up
     const topics = page.getByTestId("required-topics");
     expect(await topics.locator("li").evaluateAll((items) => items.map((li) => li.getAttribute("data-topic")))).toEqual([
       "mains-isolation",
@@ -150,6 +142,8 @@ describe("a seller lists a kit", () => {
     expect(await topics.locator('li[data-status="missing"]').count()).toBe(6);
     expect(await page.getByRole("button", { name: "Submit for review" }).isDisabled()).toBe(true);
     await screenshot(page, "selling-check-incomplete");
+    // Nothing on the form (the plot and its screen-reader table included) widens the page past the viewport.
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(1280);
 
     // One note at a time: the check follows, and stays incomplete until the last one.
     const order = ["mains-isolation", "first-power-up", "protective-earth", "live-heatsinks", "codes-and-competence", "stored-charge"];
@@ -166,6 +160,7 @@ describe("a seller lists a kit", () => {
     await expect.poll(() => submit.isEnabled()).toBe(true);
     await submit.click();
     await page.waitForURL(/\/sell\?submitted=/);
+    bramsListingId = new URL(page.url()).searchParams.get("submitted") ?? undefined;
     const row = page.getByTestId("seller-listings").getByRole("row", { name: /Half-bridge stick welder control kit/ });
     expect(await row.textContent()).toContain("In review");
     await screenshot(page, "selling-desk-in-review");
@@ -184,5 +179,72 @@ describe("a seller lists a kit", () => {
     expect(await price.inputValue()).toBe("1,50");
     expect(await page.getByLabel("Title").inputValue()).toBe("Gate-drive board");
     await screenshot(page, "selling-bad-price");
+  });
+
+  it("says the payment provider is not answering when it is down, and connects once it is back", async () => {
+    const { page } = s;
+    const failMode = (down: boolean) =>
+      fetch(`${PAYMENTS_URL}/api/test/fail-mode`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ down }) });
+    await signInThroughOutbox(page, idunn.email, "/sell");
+    await page.goto("/sell");
+    const panel = page.getByTestId("payout-panel");
+    await expect.poll(() => panel.getAttribute("data-status")).toBe("none");
+    await failMode(true);
+    try {
+      await panel.getByRole("button", { name: "Connect payout account" }).click();
+      await panel.getByText("The payment provider is not answering; try again in a minute — your drafts are safe.").waitFor();
+      expect(new URL(page.url()).pathname).toBe("/sell");
+      await screenshot(page, "selling-payments-down");
+    } finally {
+      await failMode(false);
+    }
+    await panel.getByRole("button", { name: "Connect payout account" }).click();
+    await page.waitForURL((url) => url.href.startsWith(`${PAYMENTS_URL}/onboarding/`));
+    await page.getByRole("button", { name: "Finish test onboarding" }).click();
+    await page.waitForURL(/\/sell\?payout=enabled/);
+    await expect.poll(() => panel.getAttribute("data-status")).toBe("enabled");
+  });
+
+  it("another seller cannot open or restock Bram's listing", async () => {
+    expect(bramsListingId).toBeDefined();
+    const { page } = s;
+    await signInThroughOutbox(page, idunn.email, "/sell");
+    // The page answers with the not-found view (its status is 200: the root loading.tsx streams before notFound()).
+    await page.goto(`/sell/listings/${bramsListingId}`);
+    await page.getByRole("heading", { name: "No such listing" }).waitFor();
+    expect(await page.getByTestId("listing-form").count()).toBe(0);
+    expect(await page.content()).not.toContain("Half-bridge stick welder control kit");
+    const stock = await page.request.patch(`/api/sell/listings/${bramsListingId}/stock`, { data: { stock: 0 } });
+    expect(stock.status()).toBe(404);
+    const negative = await page.request.patch(`/api/sell/listings/${bramsListingId}/stock`, { data: { stock: -5 } });
+    expect(negative.status()).toBe(422);
+  });
+
+  it("a member applies to sell: a bad entry is marked and kept, then the application shows as pending", async () => {
+    const { page } = s;
+    const email = `future.shop.${Date.now()}@example.test`;
+    await signInThroughOutbox(page, email, "/account/become-a-seller");
+    await page.goto("/account/become-a-seller");
+    await page.getByLabel("Shop name").fill("Ox");
+    await page.getByLabel("Profile", { exact: true }).fill("I wind **current-sense transformers** on small ferrite toroids.");
+    await page.getByLabel("Country you ship from").selectOption("IE");
+    await page.getByLabel("Returns policy", { exact: true }).fill("Unused parts come back within 14 days for a refund.");
+    await page.getByLabel("Returns window").fill("14");
+    await page.getByRole("button", { name: "Send the application" }).click();
+    const shopName = page.getByLabel("Shop name");
+    await expect.poll(() => shopName.getAttribute("aria-invalid")).toBe("true");
+    expect(await shopName.inputValue()).toBe("Ox");
+    expect(await page.getByLabel("Country you ship from").inputValue()).toBe("IE");
+    await page.getByRole("button", { name: "Preview the profile" }).click();
+    expect(await page.getByTestId("profileMd-preview").locator("strong").textContent()).toBe("current-sense transformers");
+    await screenshot(page, "selling-application-error");
+
+    await shopName.fill("Toroid Corner");
+    await page.getByRole("button", { name: "Send the application" }).click();
+    const status = page.getByTestId("application-status");
+    await status.waitFor();
+    expect(await status.getAttribute("data-status")).toBe("pending");
+    expect(await page.getByRole("button", { name: "Send the application" }).count()).toBe(0);
+    await screenshot(page, "selling-application-pending");
   });
 });

@@ -1,10 +1,11 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { AccessDenied } from "@/components/access/access-denied";
 import { StateBadge } from "@/components/ui/state-badge";
 import { PageHeader } from "@/components/ui/page-header";
 import { Panel } from "@/components/ui/panel";
 import { checkAccess } from "@/lib/auth/guard";
-import { effectiveRoles } from "@/lib/auth/access";
+import { effectiveRoles, hasRole } from "@/lib/auth/access";
 import { ROLE_DESCRIPTIONS } from "@/lib/auth/role-descriptions";
 
 export const metadata: Metadata = { title: "Your account" };
@@ -27,6 +28,22 @@ export default async function AccountPage() {
           ))}
         </ul>
       </Panel>
+      {!hasRole(user, "seller") ? (
+        <Panel title="Sell on Fluxyard">
+          <p className="text-sm text-graphite-700">
+            Wind magnetics or design boards? <Link href="/account/become-a-seller">Become a seller</Link>: tell us about your shop, and a
+            moderator reviews the application.
+          </p>
+        </Panel>
+      ) : null}
+      {!hasRole(user, "reviewer") ? (
+        <Panel title="Review other builders' bring-ups">
+          <p className="text-sm text-graphite-700">
+            Brought up a few inverters yourself? <Link href="/reviewers/apply">Apply to be a reviewer</Link> and get paid for
+            reviewing builders&apos; bring-up logs.
+          </p>
+        </Panel>
+      ) : null}
     </div>
   );
 }

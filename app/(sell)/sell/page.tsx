@@ -31,7 +31,14 @@ export default async function SellerDeskPage({ searchParams }: { searchParams: P
         eyebrow="Seller desk"
         title={profile?.shopName ?? `Your shop, ${access.user.name ?? access.user.email ?? ""}`}
         lede="Boards, magnetics and kits you list here reach the catalog once a moderator has checked their safety sheet."
-        actions={rows.length > 0 ? <ButtonLink href="/sell/listings/new">New listing</ButtonLink> : null}
+        actions={
+          <>
+            <ButtonLink href="/sell/orders" variant="secondary">
+              Incoming orders
+            </ButtonLink>
+            {rows.length > 0 ? <ButtonLink href="/sell/listings/new">New listing</ButtonLink> : null}
+          </>
+        }
       />
       {submitted ? (
         <Alert tone="info" title="Submitted for review">

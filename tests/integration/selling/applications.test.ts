@@ -61,19 +61,20 @@ describe("createApplication", () => {
 describe("openShopForSeller", () => {
   it("opens a shop with a slug of its own, and refuses a name another shop has (in any case)", async () => {
     const { openShopForSeller, getSellerProfile, createApplication, SellerError } = await import("@/db/queries/sellers");
-    const shop = await openShopForSeller("demo-seller-kits", { ...fields, shopName: "Oyelaran Boards" });
-    expect(shop.slug).toBe("oyelaran-boards");
-    expect((await getSellerProfile("demo-seller-kits"))?.shopName).toBe("Oyelaran Boards");
+    const shop = await openShopForSeller("demo-admin", { ...fields, shopName: "Yard Office Spares" });
+    expect(shop.slug).toBe("yard-office-spares");
+    expect((await getSellerProfile("demo-admin"))?.shopName).toBe("Yard Office Spares");
 
-    const clash = await openShopForSeller("demo-seller-magnetics", { ...fields, shopName: "OYELARAN boards" }).catch((e: unknown) => e);
+    const clash = await openShopForSeller("demo-moderator", { ...fields, shopName: "YARD office SPARES" }).catch((e: unknown) => e);
     expect(clash).toBeInstanceOf(SellerError);
     expect((clash as InstanceType<typeof SellerError>).field).toBe("shopName");
 
-    const twin = await openShopForSeller("demo-seller-magnetics", { ...fields, shopName: "Oyelaran Boards!" });
-    expect(twin.slug).toBe("oyelaran-boards-2");
+    const twin = await openShopForSeller("demo-moderator", { ...fields, shopName: "Yard Office Spares!" });
+    expect(twin.slug).toBe("yard-office-spares-2");
 
-    // Someone who already has a shop does not apply again.
-    const apply = await createApplication("demo-seller-kits", { ...fields, shopName: "Yet another" }).catch((e: unknown) => e);
+    // A person with a shop cannot open a second one, nor apply again.
+    await expect(openShopForSeller("demo-admin", { ...fields, shopName: "Second Spares" })).rejects.toBeInstanceOf(SellerError);
+    const apply = await createApplication("demo-admin", { ...fields, shopName: "Yet another" }).catch((e: unknown) => e);
     expect((apply as InstanceType<typeof SellerError>).status).toBe(409);
   });
 });

@@ -38,7 +38,7 @@ async function profileRow() {
 describe("connecting a payout account", () => {
   it("needs a shop first", async () => {
     const { startPayoutOnboarding, PayoutSetupError } = await import("@/lib/payments/connect");
-    await expect(startPayoutOnboarding(SELLER)).rejects.toBeInstanceOf(PayoutSetupError);
+    await expect(startPayoutOnboarding({ id: "demo-builder", email: "noor.builds@larkspur.test" })).rejects.toBeInstanceOf(PayoutSetupError);
   });
 
   it("creates one express account, links to the fake's onboarding page, and reads back the enabled status", async () => {

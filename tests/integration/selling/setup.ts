@@ -38,11 +38,12 @@ export async function addUpload(pool: pg.Pool, ownerId: string, key: string, pur
   );
 }
 
+/** The seller's shop with payouts on or off (the seed may already have opened one; it is then reset). */
 export async function addShop(pool: pg.Pool, userId: string, shopName: string, enabled: boolean): Promise<void> {
   await pool.query(
     `insert into seller_profiles (user_id, shop_name, slug, profile_md, country, returns_policy_md, payout_account_id, charges_enabled, payouts_enabled)
      values ($1, $2, $3, 'Invented demo shop.', 'NL', 'Returns within 30 days.', $4, $5, $5)
-     on conflict (user_id) do update set charges_enabled = $5, payouts_enabled = $5`,
+     on conflict (user_id) do update set country = 'NL', payout_account_id = excluded.payout_account_id, charges_enabled = $5, payouts_enabled = $5`,
     [userId, shopName, shopName.toLowerCase().replace(/[^a-z0-9]+/g, "-"), enabled ? `acct_test_${userId}` : null, enabled],
   );
 }
