@@ -53,7 +53,13 @@ export function HazardProfilePanel({ declaration: d, profile: p }: { declaration
             <Figure value={p.storedChargeC} unit="C" />
           </Row>
           <Row label={`Discharge to ${formatSi(p.safeVoltageV, "V")}`}>
-            {p.dischargeS === null ? <StateBadge label="No bleeder: stays charged" tone="caution" /> : <Figure value={p.dischargeS} unit="s" />}
+            {p.busPeakV <= p.safeVoltageV || p.capacitanceF === 0 ? (
+              "no charged bus"
+            ) : p.dischargeS === null ? (
+              <StateBadge label="No bleeder: stays charged" tone="caution" />
+            ) : (
+              <Figure value={p.dischargeS} unit="s" />
+            )}
           </Row>
           {p.ocv ? (
             <Row label="Open-circuit limit">

@@ -144,7 +144,7 @@ function DerivedMagnetic({ d }: { d: MagneticDerived }) {
             <TH numeric>Copper loss</TH>
             <TH numeric>Current density</TH>
             <TH numeric>Skin depth</TH>
-            <TH numeric>Strand radius / skin depth</TH>
+            <TH numeric title="Strand radius over skin depth; above 1 the AC resistance climbs">r / δ</TH>
           </TRow>
         </THead>
         <TBody>

@@ -3,6 +3,7 @@ import { deliverMail } from "@/lib/mail/outbox";
 import { sweepCheckouts } from "@/lib/payments/checkout";
 import { enforceGracePeriods, recheckLiveListings } from "@/lib/moderation/recheck";
 import { settlePendingRefunds } from "@/db/queries/orders";
+import { expireOverdueReviews } from "@/lib/reviews/sweep";
 import type { JobPayloads, QueueName } from "./queues";
 
 type Handler<Q extends QueueName> = (data: JobPayloads[Q]) => Promise<unknown>;
@@ -14,6 +15,7 @@ export const JOB_HANDLERS: { [Q in QueueName]?: Handler<Q> } = {
   "policy-recheck": async ({ revision }) => recheckLiveListings(revision),
   "policy-enforce-grace": async () => enforceGracePeriods(),
   "refunds-settle": async () => settlePendingRefunds(),
+  "reviews-expire": async () => expireOverdueReviews(new Date()),
 };
 
 /** Scheduled jobs (cron, UTC). */
@@ -24,4 +26,6 @@ export const SCHEDULES: { queue: QueueName; cron: string }[] = [
   { queue: "checkout-sweep", cron: "* * * * *" },
   // Refunds the payment provider did not answer are asked again with the same idempotency key.
   { queue: "refunds-settle", cron: "*/5 * * * *" },
+  // Review requests past 48 h expire and their holds are released; undisputed reports close after 7 days.
+  { queue: "reviews-expire", cron: "*/5 * * * *" },
 ];

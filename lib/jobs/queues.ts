@@ -5,6 +5,7 @@ export const QUEUES = {
   policyEnforceGrace: "policy-enforce-grace",
   checkoutSweep: "checkout-sweep",
   refundsSettle: "refunds-settle",
+  reviewsExpire: "reviews-expire",
 } as const;
 
 export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
@@ -15,6 +16,7 @@ export type JobPayloads = {
   "policy-enforce-grace": Record<string, never>;
   "checkout-sweep": Record<string, never>;
   "refunds-settle": Record<string, never>;
+  "reviews-expire": Record<string, never>;
 };
 
 /** Retries with exponential back-off: a provider outage of an hour or so loses nothing. */

@@ -175,16 +175,25 @@ function changedOrNull(lines: DiffLine[]): DiffLine[] | null {
   return hasChanges(lines) ? lines : null;
 }
 
+/**
+ * Part by part, what changed. A part the approved snapshot did not record (an older snapshot shape)
+ * is not reported: "not recorded" is not a change the seller made.
+ */
 export function diffSnapshots(before: ListingSnapshot, after: ListingSnapshot, topicOrder: readonly string[] = []): SnapshotDiff {
+  const has = (key: keyof ListingSnapshot) => key in before && before[key] !== undefined;
   return {
-    title: changedOrNull(textDiff(asText(before.title), asText(after.title))),
-    description: changedOrNull(textDiff(asText(before.descriptionMd), asText(after.descriptionMd))),
-    kind: recordChanges({ kind: before.kind, magneticSubtype: before.magneticSubtype }, { kind: after.kind, magneticSubtype: after.magneticSubtype }),
-    figures: recordChanges(asRecord(before.figures), asRecord(after.figures)),
-    declaration: recordChanges(asRecord(before.declaration), asRecord(after.declaration)),
-    notes: noteChanges(asNotes(before.safetyNotes), asNotes(after.safetyNotes), topicOrder),
-    checkpoints: changedOrNull(lineDiff(rowLines(before.checkpoints, describeCheckpoint), rowLines(after.checkpoints, describeCheckpoint))),
-    requirements: changedOrNull(lineDiff(rowLines(before.requirements, describeRequirement), rowLines(after.requirements, describeRequirement))),
+    title: has("title") ? changedOrNull(textDiff(asText(before.title), asText(after.title))) : null,
+    description: has("descriptionMd") ? changedOrNull(textDiff(asText(before.descriptionMd), asText(after.descriptionMd))) : null,
+    kind: has("kind") ? recordChanges({ kind: before.kind, magneticSubtype: before.magneticSubtype }, { kind: after.kind, magneticSubtype: after.magneticSubtype }) : [],
+    figures: has("figures") ? recordChanges(asRecord(before.figures), asRecord(after.figures)) : [],
+    declaration: has("declaration") ? recordChanges(asRecord(before.declaration), asRecord(after.declaration)) : [],
+    notes: has("safetyNotes") ? noteChanges(asNotes(before.safetyNotes), asNotes(after.safetyNotes), topicOrder) : [],
+    checkpoints: has("checkpoints")
+      ? changedOrNull(lineDiff(rowLines(before.checkpoints, describeCheckpoint), rowLines(after.checkpoints, describeCheckpoint)))
+      : null,
+    requirements: has("requirements")
+      ? changedOrNull(lineDiff(rowLines(before.requirements, describeRequirement), rowLines(after.requirements, describeRequirement)))
+      : null,
   };
 }
 

@@ -1,7 +1,7 @@
 import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it } from "vitest";
 import pg from "pg";
 import { openBrowser, screenshot, BASE_URL, type Session } from "./support/browser";
-import { waitForMessage } from "./support/outbox";
+import { messagesTo, waitForMessage, type OutboxMessage } from "./support/outbox";
 import { signInThroughOutbox } from "./support/sign-in";
 import { connectFixtures, ensureSellerProfile, insertApprovedVersion, insertListing, sheetNotes, type FixtureDb } from "../integration/moderation/fixtures";
 
@@ -215,6 +215,64 @@ describe("moderation in Chromium", () => {
       expect(rows[0].n).toBe(before.rows[0].n);
     } finally {
       await admin.close();
+    }
+  });
+
+  it("an admin publishes a stricter revision; the worker re-checks live listings and the desk shows who fails and until when", async () => {
+    const shortKit = await insertListing(fixtures.db, { sellerId: "demo-seller-kits", title: `Re-check kit ${run}`, state: "live", minutesAgo: 500 });
+    // Other browser suites share this database and expect the built-in revision: note what the re-check changes, and put it back.
+    const started = new Date();
+    const { rows: saved } = await pool.query("select id, policy_revision, policy_status, grace_until from listings where state = 'live'");
+    const admin = await openBrowser();
+    let revision: number | undefined;
+    try {
+      await signInThroughOutbox(admin.page, ADMIN, "/admin/policy");
+      await admin.page.goto("/admin/policy");
+      await admin.page.getByLabel("What changes").fill("Every note needs at least 40 words, so it says enough to act on.");
+      await admin.page.getByLabel("Minimum words per note").fill("40");
+      await admin.page.getByRole("button", { name: /Publish revision/ }).click();
+      await admin.page.waitForURL(/published=\d+/);
+      revision = Number(new URL(admin.page.url()).searchParams.get("published"));
+      await screenshot(admin.page, "policy-published");
+
+      // The worker picks the job up; the desk shows the run once every live listing has a result.
+      const checked = admin.page.getByTestId(`recheck-${revision}-checked`);
+      await expect
+        .poll(
+          async () => {
+            await admin.page.goto("/moderate#rechecks");
+            return Number(await checked.textContent());
+          },
+          { timeout: 30_000, interval: 1_000 },
+        )
+        .toBe(saved.length);
+      const section = admin.page.getByTestId(`recheck-${revision}`);
+      const row = section.locator("tr", { hasText: `Re-check kit ${run}` });
+      expect(await row.textContent()).toMatch(/Grace running/);
+      await screenshot(admin.page, "moderation-rechecks");
+
+      // Seeded live listings may get notices too; wait for the one about ours.
+      const title = `Re-check kit ${run}`;
+      let notice: OutboxMessage | undefined;
+      await expect
+        .poll(
+          async () => {
+            notice = (await messagesTo(SELLER)).find((m) => m.subject.includes(title) && new Date(m.createdAt) >= started);
+            return notice !== undefined;
+          },
+          { timeout: 20_000, interval: 500 },
+        )
+        .toBe(true);
+      expect(notice!.subject).toMatch(new RegExp(`^Action needed by .*: “Re-check kit ${run}” and policy revision ${revision}$`));
+      expect(notice!.text).toMatch(/asks for at least 40/);
+    } finally {
+      await admin.close();
+      for (const l of saved) {
+        await pool.query("update listings set policy_revision = $2, policy_status = $3, grace_until = $4 where id = $1", [l.id, l.policy_revision, l.policy_status, l.grace_until]);
+      }
+      await pool.query("delete from listing_decisions where decision = 'grace_notice' and created_at >= $1", [started]);
+      if (revision) await pool.query("delete from policy_revisions where revision = $1", [revision]);
+      await pool.query("update listings set state = 'retired' where id = $1", [shortKit]);
     }
   });
 });

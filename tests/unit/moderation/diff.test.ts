@@ -122,6 +122,14 @@ describe("diffSnapshots", () => {
     expect(snapshotDiffIsEmpty(diffSnapshots(approved, structuredClone(approved)))).toBe(true);
   });
 
+  it("does not report parts an older snapshot never recorded", () => {
+    const { kind: _kind, magneticSubtype: _subtype, checkpoints: _checkpoints, ...partial } = approved;
+    const d = diffSnapshots(partial, { ...approved, kind: "magnetic", checkpoints: [] });
+    expect(d.kind).toEqual([]);
+    expect(d.checkpoints).toBeNull();
+    expect(snapshotDiffIsEmpty(d)).toBe(true);
+  });
+
   it("names each changed part", () => {
     const now = {
       ...approved,

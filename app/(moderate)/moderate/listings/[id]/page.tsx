@@ -58,7 +58,8 @@ export default async function ListingReviewPage({ params, searchParams }: Props)
     checkError = (error as Error).message;
   }
   const ownListing = listing.sellerId === access.user.id;
-  const diff = review.approved ? diffSnapshots(review.approved.snapshot, review.current, SAFETY_TOPIC_KEYS) : null;
+  // Only a re-submission is compared: what is live or held is what was approved, or close to it (price, stock).
+  const diff = review.approved && listing.state === "in_review" ? diffSnapshots(review.approved.snapshot, review.current, SAFETY_TOPIC_KEYS) : null;
   const suggestedTopics = [...new Set((check?.findings ?? []).map((f) => f.topic))];
   const uploadsOrigin = env().UPLOADS_PUBLIC_ORIGIN;
 
