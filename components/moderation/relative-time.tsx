@@ -10,11 +10,14 @@ const UNITS: [Intl.RelativeTimeFormatUnit, number][] = [
 
 const format = new Intl.RelativeTimeFormat("en", { numeric: "auto" });
 
-/** "3 hours ago" for a moment in the past (or "in 2 days" for one ahead), at the largest whole unit. */
+/**
+ * "3 hours ago" for a moment in the past (or "in 2 days" for one ahead), in the largest unit it
+ * fills, rounded: a grace period of 14 days that started a minute ago still reads "in 14 days".
+ */
 export function relativeTime(iso: string, now: number): string {
   const delta = new Date(iso).getTime() - now;
   for (const [unit, ms] of UNITS) {
-    if (Math.abs(delta) >= ms) return format.format(Math.trunc(delta / ms), unit);
+    if (Math.abs(delta) >= ms) return format.format(Math.round(delta / ms), unit);
   }
   return "just now";
 }

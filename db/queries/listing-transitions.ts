@@ -90,7 +90,7 @@ export async function transitionListingInTx(
   const now = new Date();
   const actorId = input.actor.kind === "user" ? input.actor.id : null;
   const message = input.reasons?.length
-    ? input.reasons.map((r) => `${topicLabel(r.topic as never) ?? r.topic}: ${r.text}`).join("\n")
+    ? input.reasons.map((r) => `${reasonLabel(r.topic)}: ${r.text}`).join("\n")
     : (input.note ?? null);
   await tx
     .update(listings)
@@ -138,7 +138,7 @@ export async function transitionListingInTx(
             sellerName: seller.name ?? seller.email,
             listingTitle: listing.title,
             listingUrl: `${env().APP_URL}/sell/listings/${listing.id}`,
-            reasons: (input.reasons ?? []).map((r) => ({ topicLabel: topicLabel(r.topic as never) ?? r.topic, text: r.text })),
+            reasons: (input.reasons ?? []).map((r) => ({ topicLabel: reasonLabel(r.topic), text: r.text })),
             note: input.note ?? null,
           },
         }),
@@ -196,4 +196,9 @@ export async function snapshotListing(tx: Tx, listing: Listing): Promise<Record<
 /** Editing the safety sheet or figures of a live listing bumps the sheet revision and sends it back to review. */
 export async function bumpSheetRevision(tx: Tx, listingId: string): Promise<void> {
   await tx.update(listings).set({ sheetRevision: sql`${listings.sheetRevision} + 1` }).where(eq(listings.id, listingId));
+}
+
+/** A send-back reason names a safety topic, or "general" for what is not part of the sheet. */
+function reasonLabel(topic: string): string {
+  return topicLabel(topic as never) ?? (topic === "general" ? "General" : topic);
 }

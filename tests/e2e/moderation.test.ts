@@ -240,7 +240,8 @@ describe("moderation in Chromium", () => {
       await expect
         .poll(
           async () => {
-            await admin.page.goto("/moderate#rechecks");
+            // A fresh query each time: a goto that only changes the #hash would not reload the page.
+            await admin.page.goto(`/moderate?at=${Date.now()}#rechecks`);
             return Number(await checked.textContent());
           },
           { timeout: 30_000, interval: 1_000 },

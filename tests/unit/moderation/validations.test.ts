@@ -88,5 +88,7 @@ describe("relativeTime", () => {
     expect(relativeTime("2026-03-10T11:59:30Z", now)).toBe("just now");
     expect(relativeTime("2026-03-09T12:00:00Z", now)).toBe("yesterday");
     expect(relativeTime("2026-03-24T12:00:00Z", now)).toBe("in 14 days");
+    // A grace period published a minute ago: still 14 days, not 13.
+    expect(relativeTime("2026-03-24T11:59:00Z", now)).toBe("in 14 days");
   });
 });
