@@ -11,6 +11,7 @@ export function navLinksFor(user: SessionUser | null): NavLink[] {
     { href: "/cart", label: "Cart" },
   ];
   const areas: { role: Role; link: NavLink }[] = [
+    { role: "member", link: { href: "/bench", label: "My bench" } },
     { role: "member", link: { href: "/orders", label: "Orders" } },
     { role: "seller", link: { href: "/sell", label: "Seller desk" } },
     { role: "moderator", link: { href: "/moderate", label: "Moderation" } },

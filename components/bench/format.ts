@@ -1,0 +1,24 @@
+import { formatSi } from "@/components/ui/format";
+
+// Readings are shown in the checkpoint's own unit, as the kit's sheet writes them: no prefix rescaling.
+
+export function formatReading(value: number, unit: string): string {
+  return formatSi(value, unit, 5, { prefixes: false });
+}
+
+/** "38–42 kHz"; a single-value range prints once. */
+export function formatRange(min: number, max: number, unit: string): string {
+  if (min === max) return formatReading(min, unit);
+  return `${formatSi(min, "", 5, { prefixes: false })}–${formatReading(max, unit)}`;
+}
+
+const dateTime = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
+const date = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeZone: "UTC" });
+
+export function formatTakenAt(at: Date): string {
+  return `${dateTime.format(at)} UTC`;
+}
+
+export function formatDay(at: Date): string {
+  return date.format(at);
+}
