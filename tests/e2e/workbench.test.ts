@@ -19,7 +19,7 @@ describe("workbench calculators in Chromium", () => {
     expect(await main.textContent()).toMatch(/estimates for checking a design, not a certification/i);
     expect(await main.textContent()).toMatch(/charged capacitors can kill/i);
 
-    const capacitance = s.page.getByLabel("Bus capacitance", { exact: false }).first();
+    const capacitance = s.page.getByLabel("Bulk capacitance on the bus");
     await capacitance.fill("1000");
     // ½ · 1000 µF · 357.8² = 64.0 J
     await expect.poll(() => main.textContent()).toContain("64 J");
