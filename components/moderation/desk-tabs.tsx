@@ -1,11 +1,11 @@
 import Link from "next/link";
 import { cx } from "@/components/ui/cx";
 
-export type DeskTab = "queue" | "applications";
+export type DeskTab = "queue" | "applications" | "reviewers" | "disputes" | "posts";
 
 /**
  * The moderator's desk: the review queue page (with held listings and policy re-checks on it) and
- * the seller applications. Reviewer vetting and the Q&A queue join here in a later issue.
+ * the seller applications, reviewer vetting and review disputes.
  */
 export function DeskTabs({ current, counts }: { current: DeskTab; counts: { inReview: number; held: number; applications: number } }) {
   const tabs: { key: DeskTab | "held" | "rechecks"; href: string; label: string }[] = [
@@ -13,6 +13,8 @@ export function DeskTabs({ current, counts }: { current: DeskTab; counts: { inRe
     { key: "held", href: "/moderate#held", label: `Held (${counts.held})` },
     { key: "rechecks", href: "/moderate#rechecks", label: "Policy re-checks" },
     { key: "applications", href: "/moderate/applications", label: `Seller applications (${counts.applications})` },
+    { key: "reviewers", href: "/moderate/reviewers", label: "Reviewer applications" },
+    { key: "disputes", href: "/moderate/disputes", label: "Review disputes" },
   ];
   return (
     <nav aria-label="Moderation desk" className="border-b border-graphite-200">

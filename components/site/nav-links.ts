@@ -8,11 +8,13 @@ export function navLinksFor(user: SessionUser | null): NavLink[] {
   const links: NavLink[] = [
     { href: "/catalog", label: "Catalog" },
     { href: "/workbench", label: "Workbench" },
+    { href: "/reviewers", label: "Reviewers" },
     { href: "/cart", label: "Cart" },
   ];
   const areas: { role: Role; link: NavLink }[] = [
     { role: "member", link: { href: "/bench", label: "My bench" } },
     { role: "member", link: { href: "/orders", label: "Orders" } },
+    { role: "member", link: { href: "/reviews", label: "Reviews" } },
     { role: "seller", link: { href: "/sell", label: "Seller desk" } },
     { role: "moderator", link: { href: "/moderate", label: "Moderation" } },
     { role: "admin", link: { href: "/admin/users", label: "People & roles" } },

@@ -8,6 +8,7 @@ import { env } from "@/lib/env";
 import { dispatchMail } from "@/lib/mail/outbox";
 import { payments } from "./client";
 import { refundLatePayments, sendSellerShares } from "./checkout";
+import { handleReviewPaymentEvent } from "@/lib/reviews/payments";
 
 // The provider's signed events: verified first, then recorded by id in the same transaction as their
 // effect, so an event is applied exactly once however often it arrives and in whatever order.
@@ -116,6 +117,8 @@ export async function processEvent(event: Stripe.Event): Promise<WebhookResult> 
   try {
     if (result.followUp?.kind === "transfers") await sendSellerShares({ checkoutId: result.followUp.checkoutId });
     if (result.followUp?.kind === "refund") await refundLatePayments({ checkoutId: result.followUp.checkoutId });
+    // A paid review booking (its own transaction; idempotent with the builder's return page).
+    await handleReviewPaymentEvent(event);
   } catch (error) {
     console.error(`[webhooks] follow-up of ${event.id} failed; the sweep retries it:`, (error as Error).message);
   }
