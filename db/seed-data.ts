@@ -48,3 +48,11 @@ export const DEMO_SELLERS: DemoSeller[] = [
     returnsWindowDays: 14,
   },
 ];
+
+export const DEMO_REVIEWER = {
+  userId: "demo-reviewer",
+  expertise: ["welding-inverters", "gate-drive", "magnetics"],
+  profileMd:
+    "I have brought up a few dozen half-bridge and forward welding inverters at the Larkspur Yard bench. I look hardest at the series-lamp stage: bus voltage, idle current and what the gate drive does when mains first arrives.",
+  priceMinor: 4500,
+};

@@ -3,7 +3,7 @@
 import { drizzle } from "drizzle-orm/node-postgres";
 import pg from "pg";
 import * as schema from "./schema";
-import { DEMO_ACCOUNTS, DEMO_SELLERS } from "./seed-data";
+import { DEMO_ACCOUNTS, DEMO_REVIEWER, DEMO_SELLERS } from "./seed-data";
 import { DEMO_LISTINGS, type DemoListing } from "./seed-listings";
 import { checkSafetySheet, CURRENT_POLICY_REVISION } from "@/lib/policy";
 import { deriveMagnetic } from "@/lib/listings/derived";
@@ -35,6 +35,19 @@ export async function seedDemo(connectionString: string): Promise<{ created: boo
         .values(DEMO_ACCOUNTS.flatMap((a) => a.roles.map((role) => ({ userId: a.id, role, grantedAt: SEEDED_AT }))))
         .onConflictDoNothing();
       await seedSellers(tx);
+      await tx
+        .insert(schema.reviewerProfiles)
+        .values({
+          userId: DEMO_REVIEWER.userId,
+          expertise: DEMO_REVIEWER.expertise,
+          profileMd: DEMO_REVIEWER.profileMd,
+          priceMinor: DEMO_REVIEWER.priceMinor,
+          currency: "EUR",
+          // The payout account is created in the payments stand-in by the launcher, like the sellers'.
+          payoutsEnabled: true,
+          createdAt: SEEDED_AT,
+        })
+        .onConflictDoNothing();
       const listings = await seedListings(tx);
       return { created: inserted.length > 0 || listings > 0 };
     });
