@@ -5,7 +5,7 @@ export type DeskTab = "queue" | "applications" | "reviewers" | "disputes" | "pos
 
 /**
  * The moderator's desk: the review queue page (with held listings and policy re-checks on it) and
- * the seller applications, reviewer vetting and review disputes.
+ * the seller applications, reviewer vetting, review disputes and the Q&A queue.
  */
 export function DeskTabs({ current, counts }: { current: DeskTab; counts: { inReview: number; held: number; applications: number } }) {
   const tabs: { key: DeskTab | "held" | "rechecks"; href: string; label: string }[] = [
@@ -15,6 +15,7 @@ export function DeskTabs({ current, counts }: { current: DeskTab; counts: { inRe
     { key: "applications", href: "/moderate/applications", label: `Seller applications (${counts.applications})` },
     { key: "reviewers", href: "/moderate/reviewers", label: "Reviewer applications" },
     { key: "disputes", href: "/moderate/disputes", label: "Review disputes" },
+    { key: "posts", href: "/moderate/posts", label: "Q&A queue" },
   ];
   return (
     <nav aria-label="Moderation desk" className="border-b border-graphite-200">

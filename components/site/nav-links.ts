@@ -8,6 +8,7 @@ export function navLinksFor(user: SessionUser | null): NavLink[] {
   const links: NavLink[] = [
     { href: "/catalog", label: "Catalog" },
     { href: "/workbench", label: "Workbench" },
+    { href: "/questions", label: "Questions" },
     { href: "/reviewers", label: "Reviewers" },
     { href: "/cart", label: "Cart" },
   ];

@@ -18,6 +18,8 @@ export async function setupModerationDb(label: string): Promise<ModerationTestDb
   process.env.DATABASE_URL = database.url;
   const fixtures = connectFixtures(database.url);
   const pool = new pg.Pool({ connectionString: database.url, max: 2 });
+  // Dropping the database at the end cuts connections that are still closing; that is expected.
+  pool.on("error", () => {});
   await ensureSellerProfile(fixtures.db, "demo-seller-kits", "Oyelaran Boards");
   await ensureSellerProfile(fixtures.db, "demo-seller-magnetics", "Kaszuba Windings");
   return {

@@ -11,6 +11,7 @@ import { Panel } from "@/components/ui/panel";
 import { StateBadge } from "@/components/ui/state-badge";
 import { Table, TBody, TD, TH, THead, TRow } from "@/components/ui/table";
 import { Suspense } from "react";
+import { ListingQuestions } from "@/components/qa/listing-questions";
 import { ListingFits } from "@/components/catalog/listing-fits";
 import { MagneticDerivedFigures } from "@/components/catalog/magnetic-derived-figures";
 import { SkeletonText } from "@/components/ui/skeleton";
@@ -173,6 +174,10 @@ export default async function ListingPage({ params }: Props) {
       <Panel title="Mains safety sheet">
         <SafetySheetView declaration={listing.declaration} notes={listing.safetyNotes} check={check} imageOrigins={imageOrigins} />
       </Panel>
+
+      <Suspense fallback={<SkeletonText lines={4} />}>
+        <ListingQuestions listingId={listing.id} canAsk={listing.state === "live"} />
+      </Suspense>
 
       <p className="text-sm">
         <Link href="/catalog">Back to the catalog</Link>
