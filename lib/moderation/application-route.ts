@@ -3,7 +3,7 @@ import { ApplicationError, approveApplication, declineApplication } from "@/db/q
 import { guardRoute } from "@/lib/auth/guard";
 import { fieldErrorsFromZod, jsonError } from "@/lib/http/json";
 import { declineApplicationSchema } from "@/lib/validations/moderation";
-import { readOptionalJson } from "./json-body";
+import { readOptionalJson } from "@/lib/http/json";
 
 const CODES = { 403: "forbidden", 404: "not_found", 409: "conflict", 422: "invalid_input" } as const;
 

@@ -1,7 +1,7 @@
 import "server-only";
 import { guardRoute } from "@/lib/auth/guard";
 import { jsonError } from "@/lib/http/json";
-import { readOptionalJson } from "./json-body";
+import { readOptionalJson } from "@/lib/http/json";
 import { moderateListing, outcomeResponse, type ModeratorAction } from "./listing-actions";
 
 /** POST /api/moderation/listings/[id]/<action>: 401/403 from the session guard, then 404/409/422 from the transition. */

@@ -25,7 +25,8 @@ export class PayoutSetupError extends Error {
 }
 
 /** Connection failures, timeouts, 5xx and rate limits are the provider's trouble; a 4xx is ours and is rethrown. */
-async function callProvider<T>(run: () => Promise<T>): Promise<T> {
+/** Runs a provider call, turning an outage or a 5xx into PaymentsUnavailableError. */
+export async function callProvider<T>(run: () => Promise<T>): Promise<T> {
   try {
     return await run();
   } catch (error) {

@@ -3,7 +3,7 @@ import { guardRoute } from "@/lib/auth/guard";
 import type { SessionUser } from "@/lib/auth/access";
 import type { Role } from "@/db/schema/users";
 import { jsonError } from "@/lib/http/json";
-import { readOptionalJson } from "@/lib/moderation/json-body";
+import { readOptionalJson } from "@/lib/http/json";
 import type { QaOutcome } from "./outcome";
 import { outcomeJson } from "./outcome-json";
 

@@ -1,28 +1,11 @@
 import "server-only";
-import Stripe from "stripe";
 import { attachReviewerPayoutAccount, getReviewerProfile, recordReviewerPayoutStatus, ReviewError } from "@/db/queries/reviews";
 import { env } from "@/lib/env";
 import { payments } from "@/lib/payments/client";
-import { PaymentsUnavailableError } from "@/lib/payments/connect";
+import { callProvider } from "@/lib/payments/connect";
 
 // A reviewer's payout account: a connected account at the provider, made and onboarded the way a
 // seller's is (lib/payments/connect.ts), but kept on reviewer_profiles.
-
-async function callProvider<T>(run: () => Promise<T>): Promise<T> {
-  try {
-    return await run();
-  } catch (error) {
-    if (
-      error instanceof Stripe.errors.StripeConnectionError ||
-      error instanceof Stripe.errors.StripeAPIError ||
-      error instanceof Stripe.errors.StripeRateLimitError ||
-      (error instanceof Stripe.errors.StripeError && (error.statusCode ?? 0) >= 500)
-    ) {
-      throw new PaymentsUnavailableError(error);
-    }
-    throw error;
-  }
-}
 
 /** Makes the connected account on the first call, an onboarding link on every call; returns the provider's page. */
 export async function startReviewerPayoutOnboarding(user: { id: string; email: string | null; name: string | null }): Promise<string> {

@@ -190,7 +190,7 @@ describe("JSON answers", () => {
   });
 
   it("reads an empty body as {} and refuses broken JSON with 422", async () => {
-    const { readOptionalJson } = await import("@/lib/moderation/json-body");
+    const { readOptionalJson } = await import("@/lib/http/json");
     expect(await readOptionalJson(new Request("http://x", { method: "POST", body: "" }))).toEqual({ ok: true, body: {} });
     const broken = await readOptionalJson(new Request("http://x", { method: "POST", body: "{reasons" }));
     expect(broken.ok ? 0 : broken.response.status).toBe(422);

@@ -2,7 +2,7 @@ import { publishedPolicyRevisions } from "@/db/queries/moderation";
 import { currentPolicyRevision } from "@/db/queries/policy";
 import { guardRoute } from "@/lib/auth/guard";
 import { jsonError } from "@/lib/http/json";
-import { readOptionalJson } from "@/lib/moderation/json-body";
+import { readOptionalJson } from "@/lib/http/json";
 import { publishPolicyRevision } from "@/lib/moderation/publish-policy";
 
 export const dynamic = "force-dynamic";
