@@ -140,10 +140,10 @@ describe("checkout in Chromium", () => {
     expect(await s.page.getByTestId("paid-order").count()).toBe(2);
     await screenshot(s.page, "checkout-05-paid");
 
-    const receipt = await waitForMessage(buyer, since, 30_000);
+    const receipt = await waitForMessage(buyer, since, 30_000, /^Paid:/);
     expect(receipt.subject).toBe("Paid: 2 orders from one checkout");
     expect(receipt.text).toContain("€297.00");
-    const toSeller = await waitForMessage(KITS_SELLER.email, since, 30_000);
+    const toSeller = await waitForMessage(KITS_SELLER.email, since, 30_000, /^New paid order/);
     expect(toSeller.subject).toMatch(/^New paid order FY-/);
 
     expect(await stockOf(kit.id)).toBe(2);

@@ -101,7 +101,7 @@ describe("moderation in Chromium", () => {
     expect(await listingState(ids.sendBack)).toBe("sent_back");
 
     // The worker delivers the seller's e-mail from the outbox within seconds.
-    const mail = await waitForMessage(SELLER, since, 20_000);
+    const mail = await waitForMessage(SELLER, since, 20_000, "Changes needed");
     expect(mail.subject).toBe(`Changes needed: “${titles.sendBack}”`);
     expect(mail.text).toMatch(/Stored charge/);
     expect(mail.text).toMatch(/below 60 V before touching/);
@@ -182,7 +182,7 @@ describe("moderation in Chromium", () => {
     const since = new Date(Date.now() - 1000);
     await s.page.getByRole("button", { name: `Approve “Wren Windings ${run}”` }).click();
     await s.page.waitForURL(/done=approved/);
-    const mail = await waitForMessage(email, since, 20_000);
+    const mail = await waitForMessage(email, since, 20_000, `Wren Windings ${run}`);
     expect(mail.subject).toContain(`Wren Windings ${run}`);
     const roles = await pool.query("select role from user_roles where user_id = $1", [rows[0].id]);
     expect(roles.rows.map((r) => r.role)).toContain("seller");

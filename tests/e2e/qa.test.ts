@@ -154,7 +154,7 @@ describe("the moderated Q&A in Chromium", () => {
     expect(await answer.textContent()).toContain("You answered");
     await screenshot(page, "qa-answered");
 
-    const mail = await waitForMessage(ASKER, since, 30_000);
+    const mail = await waitForMessage(ASKER, since, 30_000, "New answer");
     expect(mail.subject).toBe(`New answer: “${TITLE}”`);
     expect(mail.text).toContain("Noor Delacroix-Haidari answered");
     expect(mail.html).toContain(`/questions/${id}#answer-${state.answerId}`);

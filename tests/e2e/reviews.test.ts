@@ -120,7 +120,7 @@ describe("a paid review in Chromium", () => {
     expect(await stripe.paymentIntents.retrieve(intentId)).toMatchObject({ status: "requires_capture", amount_capturable: 4500, amount_received: 0 });
 
     // The reviewer follows the e-mail.
-    const request = await waitForMessage(REVIEWER.email, requestedAt, 30_000);
+    const request = await waitForMessage(REVIEWER.email, requestedAt, 30_000, "Review request");
     expect(request.subject).toBe(`Review request: “${logTitle}”`);
     const sessionUrl = new URL(firstLink(request, `/reviews/${sessionId}`));
     reviewer = await openBrowser();
@@ -166,7 +166,7 @@ describe("a paid review in Chromium", () => {
     expect(rows[0].fee_minor + rows[0].reviewer_share_minor).toBe(4500);
 
     // The builder reads the report.
-    const notice = await waitForMessage(BUILDER.email, deliveredAt, 30_000);
+    const notice = await waitForMessage(BUILDER.email, deliveredAt, 30_000, "Your review report");
     expect(notice.subject).toBe(`Your review report: do not power “${logTitle}” up again yet`);
     await b.goto(`/reviews/${sessionId}`);
     const report = b.getByTestId("review-report");
@@ -257,7 +257,7 @@ describe("a paid review in Chromium", () => {
       const since = new Date();
       await card.getByRole("button", { name: `Approve ${email}` }).click();
       await m.waitForURL(/\?done=approved$/);
-      const welcome = await waitForMessage(email, since, 30_000);
+      const welcome = await waitForMessage(email, since, 30_000, "You are a Fluxyard reviewer");
       expect(welcome.subject).toBe("You are a Fluxyard reviewer");
 
       await a.goto("/reviews");
