@@ -20,6 +20,7 @@ import {
 import { env } from "@/lib/env";
 import { formatMoney } from "@/lib/format/money";
 import { dispatchMail, enqueueMail } from "@/lib/mail/outbox";
+import type { MailTemplate } from "@/emails/registry";
 import { OrderError } from "@/lib/orders/errors";
 import { checkLineRefund, lineTotalMinor, remainingRefundableMinor } from "@/lib/orders/refund-limits";
 import { splitRefund } from "@/lib/orders/refund-split";
@@ -368,16 +369,7 @@ export async function shipOrder(input: { orderId: string; actorId: string; carri
     if (!updated) throw new OrderError(409, "This order has just changed; reload to see its state.");
     await audit(tx, { actorId: input.actorId, action: "order.shipped", subjectId: order.id, details: { from: order.state, to: "shipped", carrier: input.carrier, trackingRef: input.trackingRef } });
     const people = await peopleOf(tx, order);
-    const ids: string[] = [];
-    if (people.buyerEmail) {
-      ids.push(
-        await enqueueMail(tx, {
-          template: orderShippedMail,
-          to: people.buyerEmail,
-          props: { buyerName: people.buyerName, orderNumber: order.number, sellerName: people.sellerName, carrier: input.carrier, trackingRef: input.trackingRef, orderUrl: buyerUrl(order.id) },
-        }),
-      );
-    }
+    const ids = await mailIfAddressed(tx, people.buyerEmail, orderShippedMail, { buyerName: people.buyerName, orderNumber: order.number, sellerName: people.sellerName, carrier: input.carrier, trackingRef: input.trackingRef, orderUrl: buyerUrl(order.id) });
     return { mailIds: ids, from: order.state };
   });
   await dispatchMail(mailIds);
@@ -434,21 +426,10 @@ export async function cancelOrder(input: { orderId: string; actorId: string }): 
       details: { from: order.state, to: "cancelled", restocked: lines, refundIds: reserved.ids, refundMinor: reserved.totalMinor },
     });
     const people = await peopleOf(tx, order);
-    const ids: string[] = [];
-    if (people.buyerEmail) {
-      ids.push(
-        await enqueueMail(tx, {
-          template: orderCancelledMail,
-          to: people.buyerEmail,
-          props: { buyerName: people.buyerName, orderNumber: order.number, sellerName: people.sellerName, refundAmount: money(reserved.totalMinor, order.currency), orderUrl: buyerUrl(order.id) },
-        }),
-      );
-    }
+    const ids = await mailIfAddressed(tx, people.buyerEmail, orderCancelledMail, { buyerName: people.buyerName, orderNumber: order.number, sellerName: people.sellerName, refundAmount: money(reserved.totalMinor, order.currency), orderUrl: buyerUrl(order.id) });
     return { mailIds: ids, refundIds: reserved.ids };
   });
-  await dispatchMail(mailIds);
-  const outcomes = [];
-  for (const id of refundIds) outcomes.push(await processRefund(id));
+  const outcomes = await afterRefundCommit(mailIds, refundIds);
   return { from: "paid", to: "cancelled", refunds: outcomes };
 }
 
@@ -647,16 +628,7 @@ export async function requestReturn(input: { orderId: string; actorId: string; r
     const [row] = await tx.insert(returnRequests).values({ orderId: order.id, reason: input.reason }).returning({ id: returnRequests.id });
     await audit(tx, { actorId: input.actorId, action: "order.return_requested", subjectId: order.id, reason: input.reason, details: { returnId: row!.id } });
     const people = await peopleOf(tx, order);
-    const ids: string[] = [];
-    if (people.sellerEmail) {
-      ids.push(
-        await enqueueMail(tx, {
-          template: returnRequestedMail,
-          to: people.sellerEmail,
-          props: { sellerName: people.sellerName, buyerName: people.buyerName, orderNumber: order.number, reason: input.reason, orderUrl: sellerUrl(order.id) },
-        }),
-      );
-    }
+    const ids = await mailIfAddressed(tx, people.sellerEmail, returnRequestedMail, { sellerName: people.sellerName, buyerName: people.buyerName, orderNumber: order.number, reason: input.reason, orderUrl: sellerUrl(order.id) });
     return { returnId: row!.id, mailIds: ids };
   });
   await dispatchMail(mailIds);
@@ -686,21 +658,10 @@ export async function acceptReturn(input: { orderId: string; returnId: string; a
     const reserved = await reserveRemaining(tx, order, "Return accepted by the seller.", input.actorId);
     await audit(tx, { actorId: input.actorId, action: "order.return_accepted", subjectId: order.id, details: { returnId: input.returnId, refundIds: reserved.ids, refundMinor: reserved.totalMinor } });
     const people = await peopleOf(tx, order);
-    const ids: string[] = [];
-    if (people.buyerEmail) {
-      ids.push(
-        await enqueueMail(tx, {
-          template: returnAcceptedMail,
-          to: people.buyerEmail,
-          props: { buyerName: people.buyerName, orderNumber: order.number, sellerName: people.sellerName, refundAmount: money(reserved.totalMinor, order.currency), orderUrl: buyerUrl(order.id) },
-        }),
-      );
-    }
+    const ids = await mailIfAddressed(tx, people.buyerEmail, returnAcceptedMail, { buyerName: people.buyerName, orderNumber: order.number, sellerName: people.sellerName, refundAmount: money(reserved.totalMinor, order.currency), orderUrl: buyerUrl(order.id) });
     return { mailIds: ids, refundIds: reserved.ids };
   });
-  await dispatchMail(mailIds);
-  const outcomes = [];
-  for (const id of refundIds) outcomes.push(await processRefund(id));
+  const outcomes = await afterRefundCommit(mailIds, refundIds);
   return { refunds: outcomes };
 }
 
@@ -709,16 +670,22 @@ export async function declineReturn(input: { orderId: string; returnId: string; 
     const order = await decideReturn(tx, input, "decline_return", input.reason);
     await audit(tx, { actorId: input.actorId, action: "order.return_declined", subjectId: order.id, reason: input.reason, details: { returnId: input.returnId } });
     const people = await peopleOf(tx, order);
-    if (!people.buyerEmail) return [];
-    return [
-      await enqueueMail(tx, {
-        template: returnDeclinedMail,
-        to: people.buyerEmail,
-        props: { buyerName: people.buyerName, orderNumber: order.number, sellerName: people.sellerName, reason: input.reason, orderUrl: buyerUrl(order.id) },
-      }),
-    ];
+    return mailIfAddressed(tx, people.buyerEmail, returnDeclinedMail, { buyerName: people.buyerName, orderNumber: order.number, sellerName: people.sellerName, reason: input.reason, orderUrl: buyerUrl(order.id) });
   });
   await dispatchMail(mailIds);
+}
+
+/** Queues one e-mail when the person has an address; returns the ids to dispatch after commit. */
+async function mailIfAddressed<P>(tx: Tx, to: string | null, template: { name: string; template: MailTemplate<P> }, props: P): Promise<string[]> {
+  return to ? [await enqueueMail(tx, { template, to, props })] : [];
+}
+
+/** After the change has committed: deliver its mail, then ask the provider for each reserved refund. */
+async function afterRefundCommit(mailIds: string[], refundIds: string[]) {
+  await dispatchMail(mailIds);
+  const outcomes = [];
+  for (const id of refundIds) outcomes.push(await processRefund(id));
+  return outcomes;
 }
 
 // ───────────────────────────── the platform fee ─────────────────────────────
