@@ -5,14 +5,14 @@
 // come from node:crypto, independent of the fake's own code.
 import { createHash, createHmac, randomBytes } from "node:crypto";
 import { mkdtempSync, rmSync } from "node:fs";
-import { createServer, request as httpRequest, type Server } from "node:http";
-import type { Socket } from "node:net";
+import { request as httpRequest } from "node:http";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { createRouteHandler, createUploadthing, UTApi, UTFile, type FileRouter } from "uploadthing/server";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { uploadthingEnv } from "@/fakes/uploads/env";
 import { startUploadsFake, type UploadsFake } from "@/fakes/uploads/server";
+import { listenApp } from "./uploads/route-harness";
 
 const API_KEY = "sk_test_uploads_fake_key";
 const APP_ID = "fluxyard-test-app";
@@ -46,41 +46,6 @@ function signByHand(fakeUrl: string, key: string, fields: Record<string, string 
   const signature = `hmac-sha256=${createHmac("sha256", API_KEY).update(url.toString()).digest("hex")}`;
   url.searchParams.append("signature", signature);
   return url.href;
-}
-
-async function listenApp(handlers: Record<string, (request: Request) => Promise<Response>>) {
-  const sockets = new Set<Socket>();
-  const server: Server = createServer(async (req, res) => {
-    const chunks: Buffer[] = [];
-    for await (const chunk of req) chunks.push(chunk as Buffer);
-    const url = new URL(req.url ?? "/", `http://${req.headers.host}`);
-    const handler = handlers[url.pathname];
-    if (!handler) return void res.writeHead(404).end();
-    const headers = new Headers();
-    for (const [name, value] of Object.entries(req.headers)) {
-      if (typeof value === "string") headers.set(name, value);
-      else for (const v of value ?? []) headers.append(name, v);
-    }
-    const hasBody = req.method !== "GET" && req.method !== "HEAD";
-    const response = await handler(new Request(url, { method: req.method, headers, body: hasBody ? Buffer.concat(chunks) : undefined }));
-    res.writeHead(response.status, Object.fromEntries(response.headers));
-    res.end(Buffer.from(await response.arrayBuffer()));
-  });
-  server.on("connection", (socket) => {
-    sockets.add(socket);
-    socket.on("close", () => sockets.delete(socket));
-  });
-  await new Promise<void>((resolve) => server.listen(0, "127.0.0.1", resolve));
-  const address = server.address();
-  const port = typeof address === "object" && address ? address.port : 0;
-  return {
-    url: `http://127.0.0.1:${port}`,
-    close: () =>
-      new Promise<void>((resolve) => {
-        server.close(() => resolve());
-        for (const socket of sockets) socket.destroy();
-      }),
-  };
 }
 
 describe("uploads fake", () => {
