@@ -40,17 +40,12 @@ export type CatalogSearch = CatalogQuery & { pageSize?: number };
 // long title ("choek" vs a 40-character title scores under 0.1), so `title % q` misses typos.
 const TYPO_THRESHOLD = 0.3;
 
-// Migration 0004 adds this column outside the Drizzle schema.
+// Migrations 0004 and 0006 add this column outside the Drizzle schema.
 const searchVector = sql`${listings}.search_vector`;
 
-// The column stems title and description with 'english' but keeps figures as 'simple' words
-// ("nanocrystalline" stays whole, while the English query stems it to "nanocrystallin"). So the
-// search asks twice: in English everywhere, and word for word in the figures only (weight B),
-// so that an unstemmed word cannot undo an English exclusion elsewhere ("choke -toroidal").
-const LEXEME = "('(?:[^']|'')*')";
+// Migration 0006 stems title, figures and description alike with 'english', as the query is.
 function tsQuery(term: string): SQL {
-  const inFigures = sql`regexp_replace(websearch_to_tsquery('simple', ${term})::text, ${LEXEME}, ${"\\1:B"}, 'g')::tsquery`;
-  return sql`(websearch_to_tsquery('english', ${term}) || ${inFigures})`;
+  return sql`websearch_to_tsquery('english', ${term})`;
 }
 
 /** The first photo of each listing, read per row through (listing_id, position). */
