@@ -71,3 +71,8 @@ export function requireObject(field: string, value: unknown): Record<string, unk
   }
   return value as Record<string, unknown>;
 }
+
+/** Samples arrive as plain arrays or typed arrays (a parsed capture holds Float64Arrays). */
+export function isNumberList(value: unknown): value is ArrayLike<number> {
+  return Array.isArray(value) || (ArrayBuffer.isView(value) && !(value instanceof DataView));
+}

@@ -90,3 +90,13 @@ export {
   type ReadingClassification,
   type ReadingVerdict,
 } from "./readings";
+export {
+  downsampleForPlot,
+  measurePulses,
+  parseCaptureCsv,
+  type CaptureChannel,
+  type DownsampledTrace,
+  type ParsedCapture,
+  type PulseInput,
+  type PulseMeasurement,
+} from "./waveform";
