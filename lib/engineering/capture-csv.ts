@@ -45,10 +45,18 @@ export function parseCaptureCsv(text: string): ParsedCapture {
   if (head.length === 0) throw captureError("The file is empty.");
   const layout = findLayout(head);
   const headBefore = head.filter((line) => line.number < layout.dataLine.number);
-  const meta = readMetadata(headBefore, layout.delimiter, layout.decimalComma);
+  const side = layout.skip === 0 ? [] : sideColumns(head, layout);
+  const meta = readMetadata([...headBefore, ...side], layout.delimiter, layout.decimalComma);
   const columns = describeColumns(headBefore, layout, meta);
   const rows = readRows(source, layout, columns);
   return assemble(rows, columns, meta);
+}
+
+function sideColumns(head: HeadLine[], layout: Layout): HeadLine[] {
+  return head
+    .filter((line) => line.number >= layout.dataLine.number)
+    .map((line) => ({ ...line, text: splitFields(line.text, layout.delimiter).slice(0, layout.skip).join(layout.delimiter) }))
+    .filter((line) => line.text.replaceAll(layout.delimiter, "").trim() !== "");
 }
 
 function captureError(message: string): EngineeringInputError {
@@ -104,7 +112,8 @@ function parseNumber(raw: string, decimalComma: boolean): number {
   return value;
 }
 
-type Layout = { delimiter: Delimiter; decimalComma: boolean; width: number; dataLine: HeadLine };
+/** `skip` leading columns of each row are not samples (a metadata block written beside the samples). */
+type Layout = { delimiter: Delimiter; decimalComma: boolean; width: number; skip: number; dataLine: HeadLine };
 
 function numericFields(fields: string[], decimalComma: boolean): boolean {
   return fields.every((f) => !Number.isNaN(parseNumber(f, decimalComma)));
@@ -123,10 +132,11 @@ function findLayout(head: HeadLine[]): Layout {
       // A lone number among metadata (a record length, say) is not the start of the data.
       if (fields.length === 1 && next && next.length !== 1) continue;
       const line = head[i]!;
-      if (!best || fields.length > best.width) best = { delimiter, decimalComma, width: fields.length, dataLine: line };
+      if (!best || fields.length > best.width) best = { delimiter, decimalComma, width: fields.length, skip: 0, dataLine: line };
       break;
     }
   }
+  best ??= findSideBySideLayout(head);
   if (!best) {
     const last = head[head.length - 1]!;
     throw captureError(
@@ -134,6 +144,33 @@ function findLayout(head: HeadLine[]): Layout {
     );
   }
   return best;
+}
+
+/**
+ * Samples in the right-hand columns with metadata in the left-hand ones for the first rows, and empty
+ * cells there below them (`Record length,1000,,-1e-6,0.02` then `,,,-0.9e-6,0.03`).
+ */
+function findSideBySideLayout(head: HeadLine[]): Layout | null {
+  for (const delimiter of DELIMITERS) {
+    const split = head.map((line) => splitFields(line.text, delimiter));
+    for (let i = 0; i < split.length; i += 1) {
+      const fields = split[i]!;
+      let skip = 0;
+      while (skip < fields.length && fields[skip] === "") skip += 1;
+      if (skip === 0 || skip === fields.length) continue;
+      const decimalComma = delimiter !== "," && head.slice(i).some((l) => l.text.includes(","));
+      if (!numericFields(fields.slice(skip), decimalComma)) continue;
+      const total = fields.length;
+      let start = i;
+      while (start > 0) {
+        const above = split[start - 1]!;
+        if (above.length !== total || !numericFields(above.slice(skip), decimalComma)) break;
+        start -= 1;
+      }
+      return { delimiter, decimalComma, width: total - skip, skip, dataLine: head[start]! };
+    }
+  }
+  return null;
 }
 
 type Metadata = { intervalS: number | null; startS: number; rateLine: number | null; keyValueLines: Set<number> };
@@ -213,14 +250,15 @@ function rateValue(raw: string, decimalComma: boolean): number | null {
 }
 
 type ColumnKind = { kind: "time"; scale: number } | { kind: "index" } | { kind: "channel"; name: string; unit?: string; scale: number };
-type Columns = { kinds: ColumnKind[]; headerLine: number | null };
+/** `firstMayBeTime`: no header names the columns, so an increasing first column is taken as time. */
+type Columns = { kinds: ColumnKind[]; headerLine: number | null; firstMayBeTime: boolean };
 
 /** Names and units from the header row (and a unit row under it, if any); which column is time. */
 function describeColumns(lines: HeadLine[], layout: Layout, meta: Metadata): Columns {
   const width = layout.width;
   // A metadata line (`Sample interval: 2 us`) is never the header.
   const candidates = lines.filter((line) => !meta.keyValueLines.has(line.number));
-  const split = candidates.map((line) => splitFields(line.text, layout.delimiter));
+  const split = candidates.map((line) => splitFields(line.text, layout.delimiter).slice(layout.skip));
   const isTextRow = (fields: string[] | undefined) =>
     !!fields && fields.length >= width && fields.slice(0, width).every((f) => f === "" || Number.isNaN(parseNumber(f, layout.decimalComma)));
   const last = split[split.length - 1];
@@ -228,7 +266,9 @@ function describeColumns(lines: HeadLine[], layout: Layout, meta: Metadata): Col
   let headerIndex = -1;
   let unitRow: string[] | null = null;
   // A unit row (`(s),(V)` or `Sequence,Volt,…`) sits under the header; it may carry numbers past the data columns.
-  if (last && last.length >= width && last.slice(0, width).every(isUnitLike) && isTextRow(beforeLast)) {
+  // The header over a unit row may number its channels (`x-axis,1,2` over `second,Volt,Volt`).
+  const namesRow = !!beforeLast && beforeLast.length >= width && Number.isNaN(parseNumber(beforeLast[0]!, layout.decimalComma));
+  if (last && last.length >= width && last.slice(0, width).every(isUnitLike) && namesRow) {
     unitRow = last;
     headerIndex = split.length - 2;
   } else if (isTextRow(last)) {
@@ -286,12 +326,13 @@ function describeColumns(lines: HeadLine[], layout: Layout, meta: Metadata): Col
   if (kinds.every((k) => k.kind !== "channel")) {
     throw captureError(`Line ${headerLine ?? layout.dataLine.number}: the capture has a time column but no channel of samples.`);
   }
-  return { kinds, headerLine };
+  const firstMayBeTime = !header && width >= 2 && kinds[0]!.kind === "channel";
+  return { kinds, headerLine, firstMayBeTime };
 }
 
 function channel(name: string, unit: string, index: number): ColumnKind {
   const known = CHANNEL_UNITS[unit.toLowerCase()];
-  const label = name === "" ? `CH${index + 1}` : name;
+  const label = name === "" ? `CH${index + 1}` : /^\d+$/.test(name) ? `CH${name}` : name;
   if (known) return { kind: "channel", name: label, unit: known.unit, scale: known.scale };
   return unit === "" ? { kind: "channel", name: label, scale: 1 } : { kind: "channel", name: label, unit, scale: 1 };
 }
@@ -309,7 +350,7 @@ type Rows = { count: number; columns: Float64Array[] };
 
 /** One pass over the data block into typed arrays; the first bad line stops it with its number. */
 function readRows(source: string, layout: Layout, columns: Columns): Rows {
-  const { delimiter, decimalComma, width } = layout;
+  const { delimiter, decimalComma, width, skip } = layout;
   const capacity = countLines(source, layout.dataLine.start);
   const out = Array.from({ length: width }, () => new Float64Array(capacity));
   const len = source.length;
@@ -329,7 +370,12 @@ function readRows(source: string, layout: Layout, columns: Columns): Rows {
     if (!isBlank(source, pos, lineEnd)) {
       let fieldStart = pos;
       let ok = true;
-      for (let col = 0; col < width; col += 1) {
+      for (let k = 0; k < skip && ok; k += 1) {
+        const d = source.indexOf(delimiter, fieldStart);
+        if (d === -1 || d >= lineEnd) ok = false;
+        else fieldStart = d + 1;
+      }
+      for (let col = 0; col < width && ok; col += 1) {
         const fast = scanNumber(source, fieldStart, lineEnd, decimalCode);
         if (fast === fast) {
           const stop = scanStop;
@@ -363,7 +409,7 @@ function readRows(source: string, layout: Layout, columns: Columns): Rows {
       if (!ok) {
         // Text after the last row (an instrument's footer) ends the data; a bad row among rows does not.
         if (footerFrom === -1 && (count === 0 || hasDigit(source, pos, lineEnd))) {
-          throw badRow(source, pos, lineEnd, lineNumber, delimiter, width, decimalComma);
+          throw badRow(source, pos, lineEnd, lineNumber, layout);
         }
         if (footerFrom === -1) footerFrom = lineNumber;
       } else if (footerFrom !== -1) {
@@ -459,6 +505,11 @@ function onlyCharAfter(s: string, from: number, end: number, code: number): bool
   return true;
 }
 
+function strictlyIncreasing(values: Float64Array): boolean {
+  for (let i = 1; i < values.length; i += 1) if (!(values[i]! > values[i - 1]!)) return false;
+  return values.length > 1;
+}
+
 const trailingDelimiters: Record<Delimiter, RegExp> = { "\t": /[\t\s]+$/, ";": /[;\s]+$/, ",": /[,\s]+$/ };
 
 function countLines(source: string, from: number): number {
@@ -487,14 +538,16 @@ function hasDigit(source: string, from: number, to: number): boolean {
   return false;
 }
 
-function badRow(source: string, from: number, to: number, lineNumber: number, delimiter: Delimiter, width: number, decimalComma: boolean): EngineeringInputError {
+function badRow(source: string, from: number, to: number, lineNumber: number, layout: Layout): EngineeringInputError {
+  const { delimiter, decimalComma, skip } = layout;
+  const width = layout.width + skip;
   const text = source.slice(from, to);
   const fields = splitFields(text, delimiter);
   const shown = text.length > 60 ? `${text.slice(0, 57)}…` : text;
   if (fields.length !== width) {
     return captureError(`Line ${lineNumber}: expected ${width} value${width === 1 ? "" : "s"} separated by ${DELIMITER_NAMES[delimiter]}, found ${fields.length} ("${shown}").`);
   }
-  const column = fields.findIndex((f) => Number.isNaN(parseNumber(f, decimalComma)));
+  const column = fields.findIndex((f, i) => i >= skip && Number.isNaN(parseNumber(f, decimalComma)));
   const field = fields[column] ?? "";
   return captureError(
     `Line ${lineNumber}, column ${column + 1}: "${field}" is not a number${field === "" ? " (the value is missing)" : ""}.`,
@@ -503,6 +556,7 @@ function badRow(source: string, from: number, to: number, lineNumber: number, de
 
 function assemble(rows: Rows, columns: Columns, meta: Metadata): ParsedCapture {
   const n = rows.count;
+  if (columns.firstMayBeTime && strictlyIncreasing(rows.columns[0]!)) columns.kinds[0] = { kind: "time", scale: 1 };
   if (n < 2) throw captureError(`The capture holds ${n} sample${n === 1 ? "" : "s"}; at least two are needed.`);
   let timeS: Float64Array | null = null;
   const channels: CaptureChannel[] = [];

@@ -94,6 +94,25 @@ describe("parseCaptureCsv — layouts", () => {
     expect(capture.channels).toEqual([{ name: "CH1", unit: "V", values: Float64Array.from([1.2, 1.3, 1.1]) }]);
   });
 
+  it("reads samples written beside a metadata block, with empty cells below it", () => {
+    const text = [
+      "Record length,5,points,-2e-6,0.01",
+      "Sample interval,1e-6,s,-1e-6,0.02",
+      "Vertical units,V,,0,11.9",
+      ",,,1e-6,12.0",
+      ",,,2e-6,0.03",
+    ].join("\r\n");
+    const capture = parseCaptureCsv(text);
+    expect(Array.from(capture.timeS)).toEqual([-2e-6, -1e-6, 0, 1e-6, 2e-6]);
+    expect(Array.from(capture.channels[0]!.values)).toEqual([0.01, 0.02, 11.9, 12, 0.03]);
+  });
+
+  it("reads a header that numbers its channels over a row of units", () => {
+    const capture = parseCaptureCsv("x-axis,1,2\nsecond,Volt,Volt\n-1e-6,0.1,5\n0,0.2,6\n1e-6,0.3,7\n");
+    expect(Array.from(capture.timeS)).toEqual([-1e-6, 0, 1e-6]);
+    expect(capture.channels.map((c) => [c.name, c.unit])).toEqual([["CH1", "V"], ["CH2", "V"]]);
+  });
+
   it("reads a headerless two-column file as time and one channel", () => {
     const capture = parseCaptureCsv("0,0\n1e-6,5\n2e-6,0\n");
     expect(Array.from(capture.timeS)).toEqual([0, 1e-6, 2e-6]);
