@@ -4,6 +4,7 @@
 // between 50 % (mesial) reference level instants (§5.3.2, §5.3.4), duty factor = pulse duration /
 // period, and overshoot/undershoot as post-transition aberrations in percent of the amplitude (§5.4).
 // Every expected figure below follows from those definitions and the synthetic signal's parameters.
+import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { EngineeringInputError, measurePulses } from "@/lib/engineering";
 import { dampedSineLobes, pulseTrain } from "./synthetic-captures";
@@ -164,5 +165,36 @@ describe("measurePulses — at the edges of validity", () => {
         if (typeof value === "number") expect(Number.isFinite(value), key).toBe(true);
       }
     }
+  });
+});
+
+describe("measurePulses — any pulse train (property)", () => {
+  it("recovers the frequency, duty cycle and levels it was built with", () => {
+    fc.assert(
+      fc.property(
+        fc.record({
+          frequencyHz: fc.double({ min: 1e3, max: 200e3, noNaN: true }),
+          duty: fc.double({ min: 0.1, max: 0.9, noNaN: true }),
+          samplesPerPeriod: fc.integer({ min: 200, max: 1000 }),
+          lowV: fc.double({ min: -20, max: 5, noNaN: true }),
+          amplitudeV: fc.double({ min: 1, max: 400, noNaN: true }),
+          edgeFraction: fc.double({ min: 0, max: 0.04, noNaN: true }),
+        }),
+        ({ frequencyHz, duty, samplesPerPeriod, lowV, amplitudeV, edgeFraction }) => {
+          const period = 1 / frequencyHz;
+          const edge = edgeFraction * period;
+          const trace = pulseTrain({ sampleRateHz: samplesPerPeriod * frequencyHz, samples: samplesPerPeriod * 6, frequencyHz, duty, lowV, highV: lowV + amplitudeV, riseTimeS: edge, fallTimeS: edge });
+          const m = measurePulses(trace);
+          // IEEE Std 181 instants are interpolated between samples: each can be off by under one sample
+          // interval on a sampled step, so the duty cycle by under 100 / samplesPerPeriod percentage points.
+          expect(m.pulseCount).toBeGreaterThanOrEqual(4);
+          expect(Math.abs(m.frequencyHz! - frequencyHz) / frequencyHz).toBeLessThan(1 / samplesPerPeriod);
+          expect(Math.abs(m.dutyCyclePct! - 100 * duty)).toBeLessThan(100 / samplesPerPeriod);
+          expect(Math.abs(m.lowV! - lowV)).toBeLessThan(1e-9 * amplitudeV + 1e-9);
+          expect(Math.abs(m.highV! - (lowV + amplitudeV))).toBeLessThan(1e-9 * amplitudeV + 1e-9);
+        },
+      ),
+      { numRuns: 60 },
+    );
   });
 });
