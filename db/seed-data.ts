@@ -13,6 +13,9 @@ export const DEMO_ACCOUNTS: DemoAccount[] = [
   { id: "demo-seller-kits", email: `bram.kits@${DEMO_DOMAIN}`, name: "Bram Oyelaran", roles: ["member", "seller"], about: "designs inverter boards and kits" },
   { id: "demo-reviewer", email: `tamsin.reviews@${DEMO_DOMAIN}`, name: "Tamsin Achterberg", roles: ["member", "reviewer"], about: "has brought up dozens of welding inverters" },
   { id: "demo-builder", email: `noor.builds@${DEMO_DOMAIN}`, name: "Noor Delacroix-Haidari", roles: ["member"], about: "is building a first stick-welding inverter" },
+  { id: "demo-builder-2", email: `jory.builds@${DEMO_DOMAIN}`, name: "Jory Okonkwo-Lind", roles: ["member"], about: "brings up an induction heater of her own design, and has applied to review" },
+  { id: "demo-applicant", email: `pim.cores@${DEMO_DOMAIN}`, name: "Pim Adeyemi-Roos", roles: ["member"], about: "is new, has applied to sell gapped cores and waits for a moderator" },
+  { id: "demo-member-declined", email: `vesna.parts@${DEMO_DOMAIN}`, name: "Vesna Holmqvist", roles: ["member"], about: "had her applications declined and her posts hidden or removed" },
 ];
 
 export type DemoSeller = {

@@ -31,7 +31,7 @@ const MAGNETICS_SELLER = "demo-seller-magnetics";
 
 const notMains: SafetyDeclaration = { mainsConnected: false, liveHeatsinks: false, weldingSource: false };
 
-const codesNote: SafetyNote = {
+export const codesNote: SafetyNote = {
   topic: "codes-and-competence",
   text: "Building and connecting this part is work on mains equipment: follow your local electrical code, and have a licensed electrician check the finished build before it is used by anyone.",
 };

@@ -1,5 +1,8 @@
-// Idempotent demo seed: every row has a fixed key and is inserted only when missing,
-// so running it twice changes nothing. `npm run db:seed` or called by the launcher.
+// Idempotent demo seed: every row has a fixed key and is inserted only when missing, so running it
+// twice changes nothing. The base (accounts, shops, the first listings) is what the tests build on;
+// `everyState` adds the rest of the scenario, in which every journey shows each of its states: orders,
+// bring-up logs, reviews, the Q&A, applications and a policy revision with its grace period running.
+// `npm run db:seed` or the launcher (`npm start`) seed all of it.
 import { drizzle } from "drizzle-orm/node-postgres";
 import pg from "pg";
 import * as schema from "./schema";
@@ -8,11 +11,23 @@ import { DEMO_LISTINGS, type DemoListing } from "./seed-listings";
 import { checkSafetySheet, CURRENT_POLICY_REVISION } from "@/lib/policy";
 import { deriveMagnetic } from "@/lib/listings/derived";
 import type { MagneticFigures } from "@/lib/validations/listings";
+import { seedApplications } from "./seed-applications";
+import { seedBench } from "./seed-bench";
+import { seedOrders } from "./seed-orders";
+import { seedPolicy } from "./seed-policy";
+import { seedQa } from "./seed-qa";
+import { seedReviews } from "./seed-reviews";
+import { seedStoryListings } from "./seed-stories";
+import { demoClock, SEEDED_AT, type DemoClock, type SeedTx } from "./seed-support";
 
-type SeedTx = Parameters<Parameters<ReturnType<typeof drizzle<typeof schema>>["transaction"]>[0]>[0];
-const SEEDED_AT = new Date("2026-09-01T09:00:00Z");
+export type SeedOptions = {
+  /** add the scenario with every state of every journey (default: the base only) */
+  everyState?: boolean;
+  /** the moment the scenario's relative times count from (tests pin it) */
+  now?: Date;
+};
 
-export async function seedDemo(connectionString: string): Promise<{ created: boolean }> {
+export async function seedDemo(connectionString: string, { everyState = false, now = new Date() }: SeedOptions = {}): Promise<{ created: boolean }> {
   const pool = new pg.Pool({ connectionString, max: 2 });
   const db = drizzle(pool, { schema });
   try {
@@ -49,11 +64,25 @@ export async function seedDemo(connectionString: string): Promise<{ created: boo
         })
         .onConflictDoNothing();
       const listings = await seedListings(tx);
-      return { created: inserted.length > 0 || listings > 0 };
+      const states = everyState ? await seedEveryState(tx, demoClock(now)) : 0;
+      return { created: inserted.length > 0 || listings > 0 || states > 0 };
     });
   } finally {
     await pool.end();
   }
+}
+
+/** The scenario's parts, in the order their rows refer to each other; returns how many top-level rows were new. */
+async function seedEveryState(tx: SeedTx, clock: DemoClock): Promise<number> {
+  let inserted = 0;
+  inserted += await seedApplications(tx, clock);
+  inserted += await seedStoryListings(tx, clock);
+  inserted += await seedPolicy(tx, clock);
+  inserted += await seedOrders(tx, clock);
+  inserted += await seedBench(tx, clock);
+  inserted += await seedReviews(tx, clock);
+  inserted += await seedQa(tx, clock);
+  return inserted;
 }
 
 async function seedSellers(tx: SeedTx) {
@@ -204,7 +233,7 @@ if (import.meta.url === `file://${process.argv[1]}`) {
     console.error("Set DATABASE_URL to the database to seed (npm start seeds its embedded database itself).");
     process.exit(1);
   }
-  seedDemo(url)
+  seedDemo(url, { everyState: true })
     .then((r) => console.log(r.created ? "demo data seeded" : "demo data already present"))
     .catch((error) => {
       console.error(error);

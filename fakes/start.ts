@@ -11,6 +11,7 @@ import { appEnvironment, appUrl, DEV_PORTS, fakeUrls, LOCAL_KEYS, localAuthSecre
 import { buildApp, startApp, type AppProcess } from "./app-process";
 import { startWorker } from "./worker-process";
 import { ensureDemoPayoutAccounts } from "./demo-payouts";
+import { ensureDemoPayments } from "./demo-payments";
 
 const root = path.resolve(import.meta.dirname, "..");
 const dataDir = path.join(root, ".data");
@@ -36,7 +37,7 @@ async function main() {
     stops.push(database.stop);
     log(`database ${redact(database.url)}${database.external ? " (from DATABASE_URL)" : ""}`);
     await applyMigrations(database.url);
-    const seeded = await seedDemo(database.url);
+    const seeded = await seedDemo(database.url, { everyState: true });
     log(seeded.created ? "demo data seeded" : "demo data already present");
 
     const urls = fakeUrls(ports);
@@ -61,6 +62,7 @@ async function main() {
     });
     stops.push(fakes.close);
     await ensureDemoPayoutAccounts({ databaseUrl: database.url, paymentsUrl: urls.payments, secretKey: LOCAL_KEYS.stripeSecret });
+    await ensureDemoPayments({ databaseUrl: database.url, paymentsUrl: urls.payments, secretKey: LOCAL_KEYS.stripeSecret, log });
 
     await buildApp(log);
     const worker = await startWorker({ env, log });

@@ -61,7 +61,7 @@ async function main(): Promise<number> {
     await dropDatabase(admin, e2eDb);
     await createDatabaseIfMissing(admin, e2eDb, TEMPLATE);
     const e2eUrl = withDatabase(admin, e2eDb);
-    await seedDemo(e2eUrl);
+    await seedDemo(e2eUrl, { everyState: true });
 
     const urls = fakeUrls(ports);
     const fakes = await startFakes({
