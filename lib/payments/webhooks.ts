@@ -110,6 +110,10 @@ export async function processEvent(event: Stripe.Event): Promise<WebhookResult> 
     await tx.update(paymentEvents).set({ outcome: effect.outcome }).where(eq(paymentEvents.id, event.id));
     return effect;
   });
+  // A paid review booking is completed in its own transaction, idempotently (the builder's return page
+  // does the same). Nothing else retries it, so it runs for a redelivered event too, and a failure
+  // answers 500 so the provider sends the event again.
+  await handleReviewPaymentEvent(event);
   if (!result) return { status: 200, body: { received: true, duplicate: true } };
 
   // After commit. Failures here are logged and retried by the sweep; the event stays processed.
@@ -117,8 +121,6 @@ export async function processEvent(event: Stripe.Event): Promise<WebhookResult> 
   try {
     if (result.followUp?.kind === "transfers") await sendSellerShares({ checkoutId: result.followUp.checkoutId });
     if (result.followUp?.kind === "refund") await refundLatePayments({ checkoutId: result.followUp.checkoutId });
-    // A paid review booking (its own transaction; idempotent with the builder's return page).
-    await handleReviewPaymentEvent(event);
   } catch (error) {
     console.error(`[webhooks] follow-up of ${event.id} failed; the sweep retries it:`, (error as Error).message);
   }

@@ -57,6 +57,28 @@ describe("booking", () => {
     expect(await handleReviewPaymentEvent({ id: "evt_x", type: "checkout.session.completed", data: { object: { ...session, metadata: { checkoutId: "x" } } } } as never)).toEqual({ handled: false, outcome: "not-ours" });
   });
 
+  it("books the review from a redelivered event when the first delivery was recorded but not booked", async () => {
+    const { processEvent } = await import("@/lib/payments/webhooks");
+    const { startBooking } = await import("@/lib/reviews/payments");
+    const { logId } = await createLog(world, BUILDER.id);
+    const { url } = await startBooking(BUILDER, { logId, reviewerId: REVIEWER.id, stages: ["control-supply"] as never, message: "" });
+    const checkoutSessionId = url.split("/pay/")[1]!;
+    const paid = await fetch(`${world.fake.url}/api/test/pay`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ sessionId: checkoutSessionId, card: "4242 4242 4242 4242" }) });
+    expect(paid.ok).toBe(true);
+    const session = await world.stripe.checkout.sessions.retrieve(checkoutSessionId);
+    const eventId = `evt_redelivered_${checkoutSessionId}`;
+    const event = { id: eventId, type: "checkout.session.completed", created: Math.floor(Date.now() / 1000), data: { object: session } } as never;
+    // The first delivery's record committed, then booking the review failed (say, a lock timeout); the
+    // builder never came back to the return page.
+    await world.pool.query("insert into payment_events (id, type, object_id, created_at_provider, payload) values ($1, $2, $3, now(), '{}') on conflict do nothing", [eventId, "checkout.session.completed", checkoutSessionId]);
+    const booked = () => world.pool.query("select id from review_sessions where log_id = $1", [logId]).then((r) => r.rows.length);
+    const before = await booked();
+    const redelivered = await processEvent(event);
+    expect(redelivered).toEqual({ status: 200, body: { received: true, duplicate: true } });
+    expect(before).toBe(0);
+    expect(await booked()).toBe(1);
+  });
+
   it("refuses a second open request of the same log with the same reviewer before any payment", async () => {
     const { quoteBooking } = await import("@/db/queries/reviews");
     const { logId } = await createLog(world, BUILDER.id);
