@@ -6,13 +6,43 @@ import { cx } from "@/components/ui/cx";
 /*
  * The one renderer for text people write: listing descriptions, safety notes, log entries,
  * Q&A, review reports. Three layers, each enough on its own for what it guards:
- *   1. `skipHtml`: raw HTML in the Markdown is dropped, never parsed (no rehype-raw).
+ *   1. Raw HTML in the Markdown is never parsed as HTML (no rehype-raw): it is shown as the text
+ *      it is, so "<script>…" reads as typed and "measure between <TP3> and <GND>" loses nothing.
+ *      `skipHtml` stays on behind it.
  *   2. rehype-sanitize with GitHub's schema narrowed to what Markdown itself produces.
  *   3. `urlTransform`: links only http/https/mailto or same-site; images only same-site paths
  *      or the origins the caller names (the uploads host).
  */
 
 const LINK_REL = "nofollow ugc noopener noreferrer";
+
+type MdNode = { type: string; value?: string; children?: MdNode[] };
+
+// Containers whose children are blocks (mdast "flow content"), where an HTML block sits.
+const FLOW_PARENTS = new Set(["root", "blockquote", "listItem", "footnoteDefinition"]);
+
+function textLines(value: string): MdNode[] {
+  return value.split(/\r?\n/).flatMap((line, i) => (i === 0 ? [{ type: "text", value: line }] : [{ type: "break" }, { type: "text", value: line }]));
+}
+
+/**
+ * A remark plugin: every raw-HTML node (CommonMark §4.6 HTML blocks, §6.6 raw inline HTML) becomes
+ * plain text, an HTML block a paragraph of it with its line breaks kept.
+ */
+function rawHtmlAsText() {
+  const walk = (node: MdNode) => {
+    if (!node.children) return;
+    node.children = node.children.map((child) => {
+      if (child.type !== "html") {
+        walk(child);
+        return child;
+      }
+      const value = child.value ?? "";
+      return FLOW_PARENTS.has(node.type) ? { type: "paragraph", children: textLines(value) } : { type: "text", value };
+    });
+  };
+  return (tree: MdNode) => walk(tree);
+}
 
 // Base used only to tell relative URLs from absolute ones; `.invalid` can never resolve.
 const RELATIVE_BASE = "https://relative.invalid";
@@ -156,6 +186,7 @@ export function Markdown({ children, imageOrigins = [], minHeadingLevel = 2, cla
     <div id={id} className={cx("max-w-reading break-words text-graphite-900", className)}>
       <ReactMarkdown
         skipHtml
+        remarkPlugins={[rawHtmlAsText]}
         rehypePlugins={[[rehypeSanitize, schema]]}
         urlTransform={(url, key, node) => {
           if (key === "src" && node.tagName === "img") return safeImageSrc(url, imageOrigins);

@@ -23,6 +23,21 @@ export class UnreadablePhotoError extends Error {
   }
 }
 
+const TOO_LARGE = `it is larger than ${MAX_INPUT_PIXELS / 1_000_000} megapixels`;
+
+/**
+ * Whether the header alone claims more pixels than the limit (the decoder refuses those before
+ * reading them, with an error that does not say why). Only the header is read: nothing is decoded.
+ */
+async function tooLarge(bytes: Uint8Array): Promise<boolean> {
+  try {
+    const { width = 0, height = 0 } = await sharp(bytes, { limitInputPixels: false, pages: 1 }).metadata();
+    return width * height > MAX_INPUT_PIXELS;
+  } catch {
+    return false;
+  }
+}
+
 const SHARP_FORMAT: Record<string, ContentKind> = { jpeg: "jpeg", png: "png", webp: "webp" };
 
 function decoder(bytes: Uint8Array) {
@@ -35,14 +50,12 @@ export async function cleanPhoto(bytes: Uint8Array, kind: ContentKind): Promise<
   try {
     metadata = await decoder(bytes).metadata();
   } catch {
-    throw new UnreadablePhotoError("it could not be read as an image; it may be damaged or incomplete");
+    throw new UnreadablePhotoError(await tooLarge(bytes) ? TOO_LARGE : "it could not be read as an image; it may be damaged or incomplete");
   }
   if (SHARP_FORMAT[metadata.format ?? ""] !== kind) {
     throw new UnreadablePhotoError("its content does not decode as the image type it starts with");
   }
-  if ((metadata.width ?? 0) * (metadata.height ?? 0) > MAX_INPUT_PIXELS) {
-    throw new UnreadablePhotoError(`it is larger than ${MAX_INPUT_PIXELS / 1_000_000} megapixels`);
-  }
+  if ((metadata.width ?? 0) * (metadata.height ?? 0) > MAX_INPUT_PIXELS) throw new UnreadablePhotoError(TOO_LARGE);
 
   // Transparent images stay transparent as WebP; everything else becomes a JPEG.
   const webp = metadata.hasAlpha === true;

@@ -1,3 +1,4 @@
+import { checkCaptureText } from "./capture-text";
 import type { UploadPurpose } from "./limits";
 import { findEmbeddedMarkup } from "./markup-scan";
 import { checkPdf } from "./pdf-check";
@@ -47,6 +48,12 @@ export function inspectUpload(purpose: UploadPurpose, bytes: Uint8Array, fileNam
     }
     case "capture": {
       if (markup) return refuse(name, `a capture must be data, but it contains page markup or script (${markup})`);
+      const text = checkCaptureText(bytes);
+      if (!text.ok) {
+        // A file that is recognisably something else (an image, a program, an archive) says so.
+        const what = describeContent(bytes);
+        return what === "something else" ? refuse(name, text.reason) : { ok: false, message: `${name} is ${what}, not a CSV or text capture.` };
+      }
       return { ok: true, kind: "capture" };
     }
   }

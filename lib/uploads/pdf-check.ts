@@ -82,6 +82,11 @@ export function checkPdf(bytes: Uint8Array): PdfVerdict {
 
   // A complete file ends with %%EOF (§7.5.5); readers tolerate a little trailing junk.
   if (!text.slice(-1024).includes("%%EOF")) return { ok: false, reason: "it looks incomplete (no end-of-file marker); it may be truncated" };
+  // Readers do tolerate junk after it, which is how a PDF doubles as a ZIP (or JAR) or a page: the
+  // file is stored as given, so after the last %%EOF only white space (§7.2.2 Table 1) may follow.
+  if (!/^[\0\t\n\f\r ]*$/.test(text.slice(text.lastIndexOf("%%EOF") + 5))) {
+    return { ok: false, reason: "it has other data appended after the end of the document" };
+  }
 
   const names = namesIn(text);
   const plain = [...names].map((name) => ACTIVE_NAMES.get(name)).find(Boolean);

@@ -48,6 +48,14 @@ export function describeContent(bytes: Uint8Array): string {
   if (startsWith(bytes, ascii("GIF87a")) || startsWith(bytes, ascii("GIF89a"))) return "a GIF image";
   if (startsWith(bytes, ascii("ftyp"), 4)) return "a HEIC or video file";
   if (startsWith(bytes, [0x50, 0x4b, 0x03, 0x04])) return "a ZIP archive or office document";
+  // Programs: PE/COFF ("MZ", Microsoft PE format), ELF (\x7fELF, System V ABI), Mach-O (FEEDFACE/FEEDFACF
+  // either byte order) and CAFEBABE (Mach-O universal or Java class), and scripts with a "#!" line.
+  if (startsWith(bytes, ascii("MZ"))) return "a Windows program";
+  if (startsWith(bytes, [0x7f, 0x45, 0x4c, 0x46])) return "a Linux program";
+  if ([[0xfe, 0xed, 0xfa, 0xce], [0xfe, 0xed, 0xfa, 0xcf], [0xce, 0xfa, 0xed, 0xfe], [0xcf, 0xfa, 0xed, 0xfe], [0xca, 0xfe, 0xba, 0xbe]].some((m) => startsWith(bytes, m))) {
+    return "a program";
+  }
+  if (startsWith(bytes, ascii("#!"))) return "a script";
   const head = new TextDecoder("latin1").decode(bytes.subarray(0, 512)).replace(/^\uFEFF/, "").trimStart().toLowerCase();
   if (head.startsWith("<!doctype html") || head.startsWith("<html")) return "an HTML page";
   if (head.includes("<svg")) return "an SVG drawing";

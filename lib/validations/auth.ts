@@ -1,8 +1,11 @@
 import { z } from "zod";
+import { safeNextPath } from "@/lib/http/safe-path";
+import { NUL_ERROR, NUL_FREE } from "./text";
 
 export const signInSchema = z.object({
   email: z
     .string({ message: "Enter your e-mail address." })
+    .regex(NUL_FREE, NUL_ERROR)
     .trim()
     .min(1, "Enter your e-mail address.")
     .max(254, "That address is too long.")
@@ -10,8 +13,9 @@ export const signInSchema = z.object({
   // Only paths on this site, so a crafted link cannot send someone elsewhere after sign-in.
   next: z
     .string()
+    .regex(NUL_FREE, NUL_ERROR)
     .optional()
-    .transform((v) => (v && v.startsWith("/") && !v.startsWith("//") ? v : "/account")),
+    .transform((v) => safeNextPath(v)),
 });
 
 export type FormResult<Fields extends string = string> =

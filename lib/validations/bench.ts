@@ -4,6 +4,7 @@
  * arrive as the text a builder typed and are parsed here, so "" is an error rather than 0.
  */
 import { z } from "zod";
+import { NUL_ERROR, NUL_FREE } from "./text";
 import { BRING_UP_STAGES } from "@/db/schema/listings";
 import { LOG_VISIBILITIES } from "@/db/schema/bench";
 import { UPLOAD_ROUTES } from "@/lib/uploads/limits";
@@ -23,7 +24,7 @@ export function parseReadingNumber(text: string): number | null {
 
 const numberText = (what: string) =>
   z
-    .union([z.string(), z.number()])
+    .union([z.string().regex(NUL_FREE, NUL_ERROR), z.number()])
     .transform((raw, ctx) => {
       const value = typeof raw === "number" ? (Number.isFinite(raw) ? raw : null) : parseReadingNumber(raw);
       if (value === null) {
@@ -34,13 +35,13 @@ const numberText = (what: string) =>
       return value;
     });
 
-const unitText = z.string().trim().min(1, { error: "Give the unit, e.g. V, A or kHz." }).max(12, { error: "A unit is at most 12 characters." });
+const unitText = z.string().regex(NUL_FREE, NUL_ERROR).trim().min(1, { error: "Give the unit, e.g. V, A or kHz." }).max(12, { error: "A unit is at most 12 characters." });
 
 export const createLogSchema = z
   .object({
     /** a kit listing's id, or "" for a build of the builder's own */
     kitListingId: z.union([z.uuid({ error: "Choose a kit from the list." }), z.literal("")]),
-    title: z.string().trim().max(120, { error: "Keep the title under 120 characters." }),
+    title: z.string().regex(NUL_FREE, NUL_ERROR).trim().max(120, { error: "Keep the title under 120 characters." }),
   })
   .refine((v) => v.kitListingId !== "" || v.title.length >= 3, { path: ["title"], error: "Give your build a title of at least 3 characters." });
 export type CreateLogInput = z.output<typeof createLogSchema>;
@@ -48,8 +49,8 @@ export type CreateLogInput = z.output<typeof createLogSchema>;
 export const builderCheckpointSchema = z
   .object({
     stage: z.enum(BRING_UP_STAGES, { error: "Choose the bring-up stage." }),
-    name: z.string().trim().min(2, { error: "Name the checkpoint." }).max(120, { error: "Keep the name under 120 characters." }),
-    measure: z.string().trim().min(2, { error: "Say what to measure and where." }).max(300, { error: "Keep this under 300 characters." }),
+    name: z.string().regex(NUL_FREE, NUL_ERROR).trim().min(2, { error: "Name the checkpoint." }).max(120, { error: "Keep the name under 120 characters." }),
+    measure: z.string().regex(NUL_FREE, NUL_ERROR).trim().min(2, { error: "Say what to measure and where." }).max(300, { error: "Keep this under 300 characters." }),
     unit: unitText,
     expectedMin: numberText("the lowest expected reading"),
     expectedMax: numberText("the highest expected reading"),
@@ -58,16 +59,16 @@ export const builderCheckpointSchema = z
 export type BuilderCheckpointInput = z.output<typeof builderCheckpointSchema>;
 
 export const readingPhotoSchema = z.object({
-  key: z.string().min(1).max(200),
-  alt: z.string().trim().max(200, { error: "Keep the description under 200 characters." }).default(""),
+  key: z.string().regex(NUL_FREE, NUL_ERROR).min(1).max(200),
+  alt: z.string().regex(NUL_FREE, NUL_ERROR).trim().max(200, { error: "Keep the description under 200 characters." }).default(""),
 });
 
 export const readingSchema = z.object({
   checkpointId: z.uuid({ error: "Choose the checkpoint this reading is for." }),
   value: numberText("the reading"),
   unit: unitText,
-  instrument: z.string().trim().max(120, { error: "Keep the instrument under 120 characters." }).default(""),
-  note: z.string().trim().max(2000, { error: "Keep the note under 2000 characters." }).default(""),
+  instrument: z.string().regex(NUL_FREE, NUL_ERROR).trim().max(120, { error: "Keep the instrument under 120 characters." }).default(""),
+  note: z.string().regex(NUL_FREE, NUL_ERROR).trim().max(2000, { error: "Keep the note under 2000 characters." }).default(""),
   photos: z
     .array(readingPhotoSchema)
     .max(MAX_READING_PHOTOS, { error: `At most ${MAX_READING_PHOTOS} photos per reading.` })

@@ -4,6 +4,7 @@
  * Prices are integer minor units in the URL and the API; the filter controls show major units.
  */
 import { z } from "zod";
+import { NUL_ERROR, NUL_FREE } from "./text";
 import type { ListingKind, MagneticSubtype } from "@/db/schema/listings";
 import { fieldErrorsFromZod, type FieldErrors } from "@/lib/http/json";
 
@@ -38,7 +39,7 @@ const minorUnits = (label: string) =>
 
 export const catalogQuerySchema = z
   .object({
-    q: optional(z.string().trim().max(MAX_QUERY_LENGTH, { error: `Keep the search under ${MAX_QUERY_LENGTH} characters.` })),
+    q: optional(z.string().regex(NUL_FREE, NUL_ERROR).trim().max(MAX_QUERY_LENGTH, { error: `Keep the search under ${MAX_QUERY_LENGTH} characters.` })),
     kind: optional(z.enum(CATALOG_KINDS, { error: "Kind is one of board, magnetic or kit." })),
     subtype: optional(z.enum(CATALOG_SUBTYPES, { error: "Subtype is one of transformer, choke or current-transformer." })),
     mains: optional(z.enum(["yes", "no"], { error: "Mains-connected is yes or no." })),
@@ -50,6 +51,7 @@ export const catalogQuerySchema = z
     seller: optional(
       z
         .string()
+        .regex(NUL_FREE, NUL_ERROR)
         .trim()
         .toLowerCase()
         .max(80, { error: "That shop handle is too long." })

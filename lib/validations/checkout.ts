@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { NUL_ERROR, NUL_FREE } from "./text";
 
 /**
  * What the checkout form sends: the sheet revision of every item the buyer ticked (`ack.<listingId>`)
@@ -30,4 +31,4 @@ export function checkoutFormInput(form: FormData): unknown {
   };
 }
 
-export const checkoutStatusQuerySchema = z.object({ session: z.string().min(1).max(255) });
+export const checkoutStatusQuerySchema = z.object({ session: z.string({ error: "Name the payment session." }).regex(NUL_FREE, NUL_ERROR).min(1, { error: "Name the payment session." }).max(255, { error: "That is not a payment session." }) });

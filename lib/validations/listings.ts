@@ -8,6 +8,7 @@
  * transitionListing with the policy revision in force).
  */
 import { z } from "zod";
+import { NUL_ERROR, NUL_FREE } from "./text";
 import { CONDUCTOR_MATERIAL_IDS, CORE_MATERIAL_IDS } from "@/lib/engineering/materials";
 import { BRING_UP_STAGES, DOCUMENT_KINDS, LISTING_KINDS, MAGNETIC_SUBTYPES } from "@/db/schema/listings";
 import { safetyDeclarationSchema, safetyNotesSchema } from "./policy";
@@ -49,6 +50,7 @@ export function minorToPriceText(minor: number): string {
 
 export const priceTextSchema = z
   .string({ error: PRICE_FORMAT_MESSAGE })
+  .regex(NUL_FREE, NUL_ERROR)
   .transform((text, ctx) => {
     const minor = parsePriceToMinor(text);
     if (minor === null) {
@@ -69,18 +71,18 @@ const whole = (label: string, min: number, max: number) =>
 
 export const stockSchema = whole("Stock", 0, MAX_STOCK);
 
-const uploadKey = z.string({ error: "An upload is missing its key." }).min(1).max(200);
+const uploadKey = z.string({ error: "An upload is missing its key." }).regex(NUL_FREE, NUL_ERROR).min(1).max(200);
 
 export const photoRefSchema = z.object({
   key: uploadKey,
-  alt: z.string().trim().max(300, { error: "Keep a photo description under 300 characters." }).default(""),
+  alt: z.string().regex(NUL_FREE, NUL_ERROR).trim().max(300, { error: "Keep a photo description under 300 characters." }).default(""),
 });
 export type PhotoRef = z.output<typeof photoRefSchema>;
 
 export const documentRefSchema = z.object({
   key: uploadKey,
   kind: z.enum(DOCUMENT_KINDS, { error: "Choose what the document is: schematic, BOM, build notes or other." }),
-  title: z.string().trim().min(1, { error: "Give the document a title." }).max(120, { error: "Keep a document title under 120 characters." }),
+  title: z.string().regex(NUL_FREE, NUL_ERROR).trim().min(1, { error: "Give the document a title." }).max(120, { error: "Keep a document title under 120 characters." }),
 });
 export type DocumentRef = z.output<typeof documentRefSchema>;
 
@@ -90,7 +92,7 @@ export const WINDING_ROLES = ["primary", "secondary", "winding"] as const;
 export type WindingRole = (typeof WINDING_ROLES)[number];
 
 export const windingSchema = z.object({
-  name: z.string().trim().min(1, { error: "Name the winding, e.g. “main” or “secondary 1”." }).max(60),
+  name: z.string().regex(NUL_FREE, NUL_ERROR).trim().min(1, { error: "Name the winding, e.g. “main” or “secondary 1”." }).max(60),
   role: z.enum(WINDING_ROLES, { error: "Say whether the winding is a primary, a secondary or the only winding." }),
   turns: whole("Turns", 1, 10_000),
   material: z.enum(CONDUCTOR_MATERIAL_IDS, { error: "Choose copper or aluminium." }),
@@ -146,9 +148,9 @@ function checkTransformerWindings(listing: { magneticSubtype: string; figures: {
 export const checkpointSchema = z
   .object({
     stage: z.enum(BRING_UP_STAGES, { error: "Choose the bring-up stage." }),
-    name: z.string().trim().min(2, { error: "Name the checkpoint." }).max(120),
-    measure: z.string().trim().min(2, { error: "Say what to measure and where." }).max(300),
-    unit: z.string().trim().min(1, { error: "Give the unit, e.g. V or A." }).max(12),
+    name: z.string().regex(NUL_FREE, NUL_ERROR).trim().min(2, { error: "Name the checkpoint." }).max(120),
+    measure: z.string().regex(NUL_FREE, NUL_ERROR).trim().min(2, { error: "Say what to measure and where." }).max(300),
+    unit: z.string().regex(NUL_FREE, NUL_ERROR).trim().min(1, { error: "Give the unit, e.g. V or A." }).max(12),
     expectedMin: z.number({ error: "The lowest expected reading must be a number." }),
     expectedMax: z.number({ error: "The highest expected reading must be a number." }),
   })
@@ -158,7 +160,7 @@ export type CheckpointInput = z.output<typeof checkpointSchema>;
 export const requirementSchema = z
   .object({
     subtype: z.enum(MAGNETIC_SUBTYPES, { error: "Choose the kind of magnetic the kit needs." }),
-    label: z.string().trim().min(2, { error: "Describe the part, e.g. “output choke”." }).max(120),
+    label: z.string().regex(NUL_FREE, NUL_ERROR).trim().min(2, { error: "Describe the part, e.g. “output choke”." }).max(120),
     minInductanceH: quantity("Minimum inductance", { min: 1e-9, max: 100 }).optional(),
     atCurrentA: quantity("Current", { min: 1e-6, max: 1e4 }).optional(),
   })
@@ -171,8 +173,8 @@ export type RequirementInput = z.output<typeof requirementSchema>;
 // ——— The whole form ———
 
 const basics = {
-  title: z.string({ error: "Give the listing a title." }).trim().min(5, { error: "A title needs at least 5 characters." }).max(120, { error: "Keep the title under 120 characters." }),
-  descriptionMd: z.string().max(20_000, { error: "Keep the description under 20 000 characters." }).default(""),
+  title: z.string({ error: "Give the listing a title." }).regex(NUL_FREE, NUL_ERROR).trim().min(5, { error: "A title needs at least 5 characters." }).max(120, { error: "Keep the title under 120 characters." }),
+  descriptionMd: z.string().regex(NUL_FREE, NUL_ERROR).max(20_000, { error: "Keep the description under 20 000 characters." }).default(""),
   price: priceTextSchema,
   currency: z.enum(CURRENCIES, { error: `Choose one of ${CURRENCIES.join(", ")}.` }),
   stock: stockSchema,

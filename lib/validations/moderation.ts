@@ -8,6 +8,7 @@
  *   restore    { note?: string }
  */
 import { z } from "zod";
+import { NUL_ERROR, NUL_FREE } from "./text";
 import { SAFETY_TOPIC_KEYS } from "@/lib/policy/topics";
 
 /** A reason is filed under a safety topic, or under "general" for what is not about the sheet (photos, title, figures). */
@@ -18,6 +19,7 @@ export const reasonTopicSchema = z.enum(REASON_TOPICS, { error: "Pick the topic 
 
 const optionalNote = z
   .string()
+  .regex(NUL_FREE, NUL_ERROR)
   .trim()
   .max(2000, { error: "Keep the note under 2000 characters." })
   .optional()
@@ -30,6 +32,7 @@ export const sendBackReasonSchema = z.object({
   topic: reasonTopicSchema,
   text: z
     .string({ error: "Say what the seller must change." })
+    .regex(NUL_FREE, NUL_ERROR)
     .trim()
     .min(3, { error: "Say what the seller must change (a few words at least)." })
     .max(2000, { error: "Keep a reason under 2000 characters." }),
@@ -48,6 +51,7 @@ export const sendBackListingSchema = z.object({
 export const holdListingSchema = z.object({
   reason: z
     .string({ error: "Say why the listing is held; the seller reads this." })
+    .regex(NUL_FREE, NUL_ERROR)
     .trim()
     .min(3, { error: "Say why the listing is held; the seller reads this." })
     .max(2000, { error: "Keep the reason under 2000 characters." }),
@@ -58,6 +62,7 @@ export type SendBackInput = z.output<typeof sendBackListingSchema>;
 export const declineApplicationSchema = z.object({
   reason: z
     .string({ error: "Say why the application is declined; the applicant reads this." })
+    .regex(NUL_FREE, NUL_ERROR)
     .trim()
     .min(3, { error: "Say why the application is declined; the applicant reads this." })
     .max(2000, { error: "Keep the reason under 2000 characters." }),
@@ -90,6 +95,7 @@ const optionalWholeNumber = (label: string, min: number, max: number) =>
 export const publishPolicySchema = z.object({
   summary: z
     .string({ error: "Say what changes in this revision; sellers read it." })
+    .regex(NUL_FREE, NUL_ERROR)
     .trim()
     .min(10, { error: "Say what changes in this revision in a sentence; sellers read it." })
     .max(1000, { error: "Keep the summary under 1000 characters." }),

@@ -11,6 +11,7 @@
  * and the admin's platform fee form { percent: "8.25" }.
  */
 import { z } from "zod";
+import { NUL_ERROR, NUL_FREE } from "./text";
 import { ORDER_STATES } from "@/db/schema/orders";
 import { minorDigits } from "@/lib/format/money";
 import { parseMajorUnits, parsePercentToBasisPoints } from "@/lib/orders/amount-input";
@@ -20,11 +21,13 @@ export const MAX_FEE_BPS = 5000;
 export const shipOrderSchema = z.object({
   carrier: z
     .string({ error: "Name the carrier." })
+    .regex(NUL_FREE, NUL_ERROR)
     .trim()
     .min(2, { error: "Name the carrier (two letters at least)." })
     .max(60, { error: "Keep the carrier's name under 60 characters." }),
   trackingRef: z
     .string({ error: "Enter the tracking reference." })
+    .regex(NUL_FREE, NUL_ERROR)
     .trim()
     .min(4, { error: "A tracking reference has at least 4 characters." })
     .max(64, { error: "Keep the tracking reference under 64 characters." })
@@ -36,6 +39,7 @@ export type ShipOrderInput = z.infer<typeof shipOrderSchema>;
 const reasonText = (what: string, min: number) =>
   z
     .string({ error: `Say ${what}.` })
+    .regex(NUL_FREE, NUL_ERROR)
     .trim()
     .min(min, { error: `Say ${what} (${min} characters at least).` })
     .max(2000, { error: "Keep it under 2000 characters." });
@@ -47,6 +51,7 @@ export function lineRefundSchema(currency: string) {
     lineId: z.uuid({ error: "Pick the line to refund." }),
     amount: z
       .string({ error: "Enter the amount to refund." })
+      .regex(NUL_FREE, NUL_ERROR)
       .transform((text, ctx) => {
         const parsed = parseMajorUnits(text, digits);
         if (!parsed.ok) {
@@ -69,7 +74,7 @@ export const returnRequestSchema = z.object({ reason: reasonText("why you want t
 export const declineReturnSchema = z.object({ reason: reasonText("why you decline the return; the buyer reads this", 10) });
 
 export const platformFeeSchema = z.object({
-  percent: z.string({ error: "Enter the fee as a percentage." }).transform((text, ctx) => {
+  percent: z.string({ error: "Enter the fee as a percentage." }).regex(NUL_FREE, NUL_ERROR).transform((text, ctx) => {
     const parsed = parsePercentToBasisPoints(text);
     if (!parsed.ok) {
       ctx.addIssue({ code: "custom", message: parsed.message });

@@ -8,6 +8,7 @@
  *                 requiredTopics, … }, revision }
  */
 import { z } from "zod";
+import { NUL_ERROR, NUL_FREE } from "./text";
 import type { PolicyRevision } from "@/lib/policy/revisions";
 import { TOPIC_CONDITIONS } from "@/lib/policy/revisions";
 import type { SafetyDeclaration } from "@/lib/policy/hazard-profile";
@@ -42,7 +43,7 @@ export const safetyDeclarationSchema = z
 
 export const safetyNoteSchema = z.object({
   topic: safetyTopicSchema,
-  text: z.string({ error: "A note needs text." }).max(20_000, { error: "Keep a note under 20 000 characters." }),
+  text: z.string({ error: "A note needs text." }).regex(NUL_FREE, NUL_ERROR).max(20_000, { error: "Keep a note under 20 000 characters." }),
   waitSeconds: quantity("Wait", { min: 0, max: 86_400 }).optional(),
 }) satisfies z.ZodType<SafetyNote>;
 
@@ -58,7 +59,7 @@ export type PolicyCheckRequest = z.output<typeof policyCheckRequestSchema>;
 export const policyRevisionSchema = z.object({
   revision: z.number().int().positive(),
   publishedAt: z.iso.datetime(),
-  summary: z.string().min(1),
+  summary: z.string().regex(NUL_FREE, NUL_ERROR).min(1),
   minWords: z.number().int().min(1).max(1000),
   storedChargeThresholdC: z.number().positive(),
   safeVoltageV: z.number().positive().max(1000),
@@ -71,7 +72,7 @@ export const policyRevisionSchema = z.object({
     }),
   ),
   handDischarge: z.object({
-    actions: z.array(z.string().min(2)).min(1),
-    means: z.array(z.string().min(2)).min(1),
+    actions: z.array(z.string().regex(NUL_FREE, NUL_ERROR).min(2)).min(1),
+    means: z.array(z.string().regex(NUL_FREE, NUL_ERROR).min(2)).min(1),
   }),
 }) satisfies z.ZodType<PolicyRevision>;

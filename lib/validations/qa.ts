@@ -9,6 +9,7 @@
  *   POST /api/posts/[kind]/[id]/{approve,restore}  {}
  */
 import { z } from "zod";
+import { NUL_ERROR, NUL_FREE } from "./text";
 import { UPLOAD_ROUTES } from "@/lib/uploads/limits";
 
 export const QUESTION_TITLE_MAX = 160;
@@ -21,8 +22,8 @@ const optionalId = (what: string) =>
   z.preprocess(blankToUndefined, z.guid({ error: `That ${what} does not exist.` }).optional());
 
 export const postPhotoSchema = z.object({
-  key: z.string({ error: "A photo is missing its key." }).min(1).max(200),
-  alt: z.string().trim().max(200, { error: "Keep a photo description under 200 characters." }).default(""),
+  key: z.string({ error: "A photo is missing its key." }).regex(NUL_FREE, NUL_ERROR).min(1).max(200),
+  alt: z.string().regex(NUL_FREE, NUL_ERROR).trim().max(200, { error: "Keep a photo description under 200 characters." }).default(""),
 });
 export type PostPhotoRef = z.output<typeof postPhotoSchema>;
 
@@ -35,6 +36,7 @@ const photos = z
 const body = (what: string) =>
   z
     .string({ error: `Write your ${what}.` })
+    .regex(NUL_FREE, NUL_ERROR)
     .trim()
     .min(20, { error: `Write your ${what} in a sentence or two (20 characters at least).` })
     .max(POST_BODY_MAX, { error: `Keep your ${what} under ${POST_BODY_MAX.toLocaleString("en")} characters.` });
@@ -42,6 +44,7 @@ const body = (what: string) =>
 export const askQuestionSchema = z.object({
   title: z
     .string({ error: "Give your question a title." })
+    .regex(NUL_FREE, NUL_ERROR)
     .trim()
     .min(10, { error: "Give your question a title of a few words (10 characters at least)." })
     .max(QUESTION_TITLE_MAX, { error: `Keep the title under ${QUESTION_TITLE_MAX} characters.` }),
@@ -58,6 +61,7 @@ export type AnswerInput = z.output<typeof answerSchema>;
 export const flagPostSchema = z.object({
   reason: z
     .string({ error: "Say what is wrong with the post." })
+    .regex(NUL_FREE, NUL_ERROR)
     .trim()
     .min(3, { error: "Say what is wrong with the post (a few words at least)." })
     .max(500, { error: "Keep the reason under 500 characters." }),
@@ -66,6 +70,7 @@ export const flagPostSchema = z.object({
 export const removePostSchema = z.object({
   reason: z
     .string({ error: "Say why the post is removed; its author reads this." })
+    .regex(NUL_FREE, NUL_ERROR)
     .trim()
     .min(3, { error: "Say why the post is removed; its author reads this." })
     .max(2000, { error: "Keep the reason under 2000 characters." }),

@@ -7,6 +7,7 @@
  *   settle dispute       { outcome, amount? ("12.50", only for a partial refund), note }
  */
 import { z } from "zod";
+import { NUL_ERROR, NUL_FREE } from "./text";
 import { BRING_UP_STAGES } from "@/db/schema/listings";
 import { CHECKPOINT_VERDICTS } from "@/db/schema/reviews";
 import { minorDigits } from "@/lib/format/money";
@@ -40,12 +41,13 @@ export const MAX_REVIEW_PRICE_MINOR = 100_000;
 function text(what: string, min: number, max: number) {
   return z
     .string({ error: `Write ${what}.` })
+    .regex(NUL_FREE, NUL_ERROR)
     .trim()
     .min(min, { error: `Write ${what} (${min} characters at least).` })
     .max(max, { error: `Keep it under ${max} characters.` });
 }
 
-export const reviewPriceSchema = z.string({ error: "Enter your price per review." }).transform((raw, ctx) => {
+export const reviewPriceSchema = z.string({ error: "Enter your price per review." }).regex(NUL_FREE, NUL_ERROR).transform((raw, ctx) => {
   const parsed = parseMajorUnits(raw, minorDigits(REVIEW_CURRENCY));
   if (!parsed.ok) {
     ctx.addIssue({ code: "custom", message: parsed.message });
@@ -74,19 +76,19 @@ export const declineReviewerSchema = z.object({ reason: text("why the applicatio
 
 export const bookingSchema = z.object({
   logId: z.uuid({ error: "Pick one of your bring-up logs." }),
-  reviewerId: z.string({ error: "Pick a reviewer." }).trim().min(1, { error: "Pick a reviewer." }).max(200),
+  reviewerId: z.string({ error: "Pick a reviewer." }).regex(NUL_FREE, NUL_ERROR).trim().min(1, { error: "Pick a reviewer." }).max(200),
   stages: z
     .array(z.enum(BRING_UP_STAGES, { error: "Pick stages from the list." }), { error: "Pick at least one stage to review." })
     .min(1, { error: "Pick at least one stage to review." })
     .transform((stages) => BRING_UP_STAGES.filter((s) => stages.includes(s))),
   // Travels with the payment session's metadata until the payment is authorised, hence the provider's 500-character limit.
-  message: z.string().trim().max(500, { error: "Keep the note to the reviewer under 500 characters." }).default(""),
+  message: z.string().regex(NUL_FREE, NUL_ERROR).trim().max(500, { error: "Keep the note to the reviewer under 500 characters." }).default(""),
 });
 export type BookingInput = z.output<typeof bookingSchema>;
 export type BookingField = "logId" | "reviewerId" | "stages" | "message";
 
 export const declineReviewSchema = z.object({
-  reason: z.string().trim().max(1000, { error: "Keep the note under 1000 characters." }).default(""),
+  reason: z.string().regex(NUL_FREE, NUL_ERROR).trim().max(1000, { error: "Keep the note under 1000 characters." }).default(""),
 });
 
 /** A "needs attention" or "stop" verdict must say what to look at; "fine" may stand alone. */
@@ -94,7 +96,7 @@ export const verdictSchema = z
   .object({
     checkpointId: z.uuid(),
     verdict: z.enum(CHECKPOINT_VERDICTS, { error: "Give every checkpoint a verdict." }),
-    comment: z.string().trim().max(2000, { error: "Keep a comment under 2000 characters." }).default(""),
+    comment: z.string().regex(NUL_FREE, NUL_ERROR).trim().max(2000, { error: "Keep a comment under 2000 characters." }).default(""),
   })
   .superRefine((v, ctx) => {
     if (v.verdict !== "fine" && v.comment.length < 10) {
@@ -116,7 +118,7 @@ export type SettleOutcome = (typeof SETTLE_OUTCOMES)[number];
 export const settleDisputeSchema = z
   .object({
     outcome: z.enum(SETTLE_OUTCOMES, { error: "Choose how the dispute ends." }),
-    amount: z.string().trim().default(""),
+    amount: z.string().regex(NUL_FREE, NUL_ERROR).trim().default(""),
     note: text("the decision; both the builder and the reviewer read it", 10, 2000),
   })
   .transform((value, ctx): SettleDisputeInput => {

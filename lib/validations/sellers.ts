@@ -3,6 +3,7 @@
  * role was granted directly, the shop profile they fill in. Used by the client form and the server.
  */
 import { z } from "zod";
+import { NUL_ERROR, NUL_FREE } from "./text";
 
 /** ISO 3166-1 alpha-2: every officially assigned code. */
 export const COUNTRY_CODES = [
@@ -31,17 +32,20 @@ export function countryOptions(locale = "en"): { value: CountryCode; label: stri
 export const shopFieldsSchema = z.object({
   shopName: z
     .string({ error: "Give your shop a name." })
+    .regex(NUL_FREE, NUL_ERROR)
     .trim()
     .min(3, { error: "A shop name needs at least 3 characters." })
     .max(60, { error: "Keep the shop name under 60 characters." }),
   profileMd: z
     .string({ error: "Write a short profile." })
+    .regex(NUL_FREE, NUL_ERROR)
     .trim()
     .min(20, { error: "Write at least a couple of sentences about what you make (20 characters or more)." })
     .max(4000, { error: "Keep the profile under 4000 characters." }),
   country: z.enum(COUNTRY_CODES, { error: "Choose the country you ship from." }),
   returnsPolicyMd: z
     .string({ error: "Describe your returns policy." })
+    .regex(NUL_FREE, NUL_ERROR)
     .trim()
     .min(20, { error: "Describe your returns policy in a sentence or two (20 characters or more)." })
     .max(4000, { error: "Keep the returns policy under 4000 characters." }),

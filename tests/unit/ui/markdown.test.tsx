@@ -1,7 +1,7 @@
 import { renderToStaticMarkup } from "react-dom/server";
 import { describe, expect, it } from "vitest";
 import { Markdown, safeHref, safeImageSrc } from "@/components/markdown";
-import { tagsNamed } from "./html";
+import { tags, tagsNamed } from "./html";
 
 const render = (source: string, imageOrigins?: string[]) =>
   renderToStaticMarkup(<Markdown imageOrigins={imageOrigins}>{source}</Markdown>);
@@ -9,23 +9,25 @@ const render = (source: string, imageOrigins?: string[]) =>
 // Attack strings follow the OWASP XSS Filter Evasion Cheat Sheet (script tags, event-handler
 // attributes, javascript:/data: URLs, entity-obfuscated schemes, iframes and SVG onload).
 describe("Markdown strips what could run script", () => {
-  it("drops <script> elements and their content", () => {
+  it("shows <script> as the text it is, never as an element", () => {
     const html = render("Before\n\n<script>alert('x')</script>\n\nAfter");
     expect(html).not.toMatch(/<script/i);
-    expect(html).not.toContain("alert(");
+    expect(tagsNamed(html, "script")).toEqual([]);
+    expect(html).toContain("&lt;script&gt;alert(&#x27;x&#x27;)&lt;/script&gt;");
     expect(html).toContain("Before");
     expect(html).toContain("After");
   });
 
-  it("drops raw <img onerror>, <iframe> and <svg onload>", () => {
+  it("shows raw <img onerror>, <iframe> and <svg onload> as text, never as elements or attributes", () => {
     const html = render(
       'Text <img src="x" onerror="alert(1)"> more\n\n<iframe src="https://elsewhere.example/"></iframe>\n\n<svg onload="alert(2)"><circle r="4"/></svg>',
     );
-    expect(html).not.toMatch(/onerror/i);
-    expect(html).not.toMatch(/onload/i);
-    expect(html).not.toMatch(/<iframe/i);
-    expect(html).not.toMatch(/<svg/i);
-    expect(html).not.toMatch(/<img/i);
+    for (const name of ["img", "iframe", "svg"]) expect(tagsNamed(html, name), name).toEqual([]);
+    expect(tags(html).flatMap((t) => Object.keys(t.attrs)).filter((a) => /^on/i.test(a))).toEqual([]);
+    expect(html).not.toMatch(/<(img|iframe|svg)/i);
+    // Shown as typed, so nothing the writer wrote disappears.
+    expect(html).toContain("&lt;iframe src=&quot;https://elsewhere.example/&quot;&gt;&lt;/iframe&gt;");
+    expect(html).toContain("Text &lt;img src=&quot;x&quot; onerror=&quot;alert(1)&quot;&gt; more");
   });
 
   it("removes javascript: links, including case and entity tricks, but keeps the link text", () => {
