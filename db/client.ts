@@ -25,8 +25,14 @@ export function createPool(connectionString: string): pg.Pool {
     // A query that hangs must not hold a request forever.
     statement_timeout: 15_000,
   });
-  // An idle client that loses its server (a database restart) must not crash the process.
-  pool.on("error", (error) => console.error("[db] idle client error:", error.message));
+  // A client that loses its server (a database restart) must not crash the process, whether idle or
+  // checked out for a transaction: the pool listens on idle clients only, and an "error" event nobody
+  // hears throws. The query in flight fails on its own, and the pool drops the broken client.
+  pool.on("connect", (client) => {
+    client.on("error", (error) => console.error("[db] connection lost:", error.message));
+  });
+  // The pool re-emits an idle client's error, which the listener above has already logged.
+  pool.on("error", () => {});
   return pool;
 }
 

@@ -1,6 +1,6 @@
 // Lifecycle of the embedded PostgreSQL server used by `npm start` and `npm test`.
 // With DATABASE_URL set, nothing is started and that server is used as it is.
-import { execFileSync, spawnSync } from "node:child_process";
+import { execFileSync, spawn, spawnSync } from "node:child_process";
 import { existsSync, mkdirSync, readdirSync, rmSync, statSync, writeFileSync, chownSync } from "node:fs";
 import { createHash } from "node:crypto";
 import path from "node:path";
@@ -12,6 +12,18 @@ export type DatabaseServer = {
   /** true when DATABASE_URL pointed at a server we did not start */
   external: boolean;
   stop(): Promise<void>;
+  /**
+   * Stops the embedded server and starts it again on the same folder, port and settings, for fault
+   * tests. `immediate` is what a crash looks like to clients (no checkpoint; the server replays its
+   * write-ahead log at start); `fast` is an orderly restart. Refused for a server we did not start.
+   */
+  restart(options?: RestartOptions): Promise<void>;
+};
+
+export type RestartOptions = {
+  mode?: "fast" | "immediate";
+  /** how long the server stays down between the stop and the start */
+  downMs?: number;
 };
 
 export type EmbeddedOptions = {
@@ -32,7 +44,14 @@ export async function startDatabase(options: EmbeddedOptions, env: NodeJS.Proces
   if (env.DATABASE_URL) {
     log(`using the PostgreSQL server at DATABASE_URL`);
     await waitForConnection(env.DATABASE_URL, 15_000);
-    return { url: env.DATABASE_URL, external: true, stop: async () => {} };
+    return {
+      url: env.DATABASE_URL,
+      external: true,
+      stop: async () => {},
+      restart: async () => {
+        throw new Error("cannot restart the PostgreSQL server at DATABASE_URL: it was not started here");
+      },
+    };
   }
 
   const bin = findPostgresBin() ?? installPostgres(log);
@@ -54,14 +73,17 @@ export async function startDatabase(options: EmbeddedOptions, env: NodeJS.Proces
   writeFileSync(logFile, "", { flag: "a" });
   own(logFile, runAs);
 
-  if (!clusterRunning(bin, dataDir, runAs)) {
-    log(`starting PostgreSQL on 127.0.0.1:${options.port}`);
-    // TCP on loopback only; no Unix socket, so the project path length never matters.
-    const serverOptions = `-c listen_addresses=127.0.0.1 -p ${options.port} -c unix_socket_directories= -c fsync=${options.fresh ? "off" : "on"}`;
+  // TCP on loopback only; no Unix socket, so the project path length never matters.
+  const serverOptions = `-c listen_addresses=127.0.0.1 -p ${options.port} -c unix_socket_directories= -c fsync=${options.fresh ? "off" : "on"}`;
+  const start = () => {
     const result = run(runAs, path.join(bin, "pg_ctl"), ["-D", dataDir, "-l", logFile, "-w", "-t", "60", "-o", serverOptions, "start"], false);
     if (result.status !== 0) {
       throw new Error(`PostgreSQL did not start (see ${logFile}):\n${result.stderr}${result.stdout}\n${tail(logFile)}`);
     }
+  };
+  if (!clusterRunning(bin, dataDir, runAs)) {
+    log(`starting PostgreSQL on 127.0.0.1:${options.port}`);
+    start();
   } else {
     log(`PostgreSQL is already running for ${dataDir}`);
   }
@@ -75,6 +97,17 @@ export async function startDatabase(options: EmbeddedOptions, env: NodeJS.Proces
     external: false,
     stop: async () => {
       stopCluster(bin, dataDir, runAs);
+    },
+    restart: async ({ mode = "fast", downMs = 0 } = {}) => {
+      log(`restarting PostgreSQL on 127.0.0.1:${options.port} (${mode} stop, down for ${downMs} ms)`);
+      // Without blocking the event loop, so a test can keep sending requests meanwhile.
+      const pgCtl = path.join(bin, "pg_ctl");
+      const stopped = await runAsync(runAs, pgCtl, ["-D", dataDir, "-m", mode, "-w", "stop"]);
+      if (stopped.status !== 0) throw new Error(`pg_ctl stop failed:\n${stopped.output}`);
+      await new Promise((resolve) => setTimeout(resolve, downMs));
+      const started = await runAsync(runAs, pgCtl, ["-D", dataDir, "-l", logFile, "-w", "-t", "60", "-o", serverOptions, "start"]);
+      if (started.status !== 0) throw new Error(`PostgreSQL did not start again (see ${logFile}):\n${started.output}\n${tail(logFile)}`);
+      await waitForConnection(adminUrl, 30_000);
     },
   };
 }
@@ -200,6 +233,18 @@ function run(runAs: OsUser, command: string, args: string[], check = true) {
     throw new Error(`${path.basename(command)} failed (exit ${result.status}):\n${result.stderr}${result.stdout}`);
   }
   return result;
+}
+
+function runAsync(runAs: OsUser, command: string, args: string[]): Promise<{ status: number; output: string }> {
+  const [cmd, argv] = runAs ? ["runuser", ["-u", runAs.name, "--", command, ...args]] : [command, args];
+  return new Promise((resolve) => {
+    const child = spawn(cmd as string, argv as string[], { cwd: os.tmpdir(), stdio: ["ignore", "pipe", "pipe"] });
+    let output = "";
+    child.stdout.on("data", (d: Buffer) => (output += d.toString()));
+    child.stderr.on("data", (d: Buffer) => (output += d.toString()));
+    child.on("error", (error) => resolve({ status: 1, output: `${output}${error.message}` }));
+    child.on("close", (code) => resolve({ status: code ?? 1, output }));
+  });
 }
 
 function clusterRunning(bin: string, dataDir: string, runAs: OsUser): boolean {

@@ -21,10 +21,15 @@ export type OutgoingMessage = {
   attachments: { filename: string | null; contentType: string | null }[];
 };
 
-export type StoredMessage = OutgoingMessage & { id: string; createdAt: string };
+export type StoredMessage = OutgoingMessage & {
+  id: string;
+  createdAt: string;
+  /** the Idempotency-Key the sender gave, so a test can tell a retry from a second send */
+  idempotencyKey: string | null;
+};
 
 export type MessageStore = {
-  add(message: OutgoingMessage): StoredMessage;
+  add(message: OutgoingMessage, idempotencyKey?: string | null): StoredMessage;
   /** Newest first; `to` matches a bare address case-insensitively, with or without a display name. */
   list(filter?: { to?: string }): StoredMessage[];
   get(id: string): StoredMessage | undefined;
@@ -61,8 +66,8 @@ export function createMessageStore(storeFile?: string): MessageStore {
   };
 
   return {
-    add(message) {
-      const stored: StoredMessage = { ...message, id: randomUUID(), createdAt: new Date().toISOString() };
+    add(message, idempotencyKey = null) {
+      const stored: StoredMessage = { ...message, id: randomUUID(), createdAt: new Date().toISOString(), idempotencyKey };
       messages.push(stored);
       persist();
       return stored;

@@ -76,6 +76,9 @@ export async function startMailFake(options: MailFakeOptions = {}): Promise<Mail
   const { port = 4010, host = "127.0.0.1", apiKey, storeFile } = options;
   const store = createMessageStore(storeFile);
   let down = false;
+  // A test switch: this many accepted sends are stored, then their connection is cut before the
+  // answer, as when a network drops the reply; the sender cannot tell it from a failure.
+  let answersToLose = 0;
   // The hosted API replays the first answer for a repeated Idempotency-Key.
   const idempotent = new Map<string, { body: string; answer: unknown }>();
 
@@ -102,7 +105,8 @@ export async function startMailFake(options: MailFakeOptions = {}): Promise<Mail
         return true;
       }
       const key = req.headers["idempotency-key"];
-      const idempotencyKey = typeof key === "string" && key !== "" ? `${path} ${key}` : undefined;
+      const senderKey = typeof key === "string" && key !== "" ? key : null;
+      const idempotencyKey = senderKey ? `${path} ${senderKey}` : undefined;
       const bodyText = JSON.stringify(read.body);
       if (idempotencyKey) {
         const seen = idempotent.get(idempotencyKey);
@@ -119,8 +123,18 @@ export async function startMailFake(options: MailFakeOptions = {}): Promise<Mail
           return true;
         }
       }
-      const answer = path === "/emails" ? sendOne(res, read.body) : sendBatch(req, res, read.body);
-      if (answer !== undefined && idempotencyKey) idempotent.set(idempotencyKey, { body: bodyText, answer });
+      const outcome = path === "/emails" ? sendOne(read.body, senderKey) : sendBatch(req, read.body, senderKey);
+      if ("error" in outcome) {
+        sendError(res, outcome.error);
+        return true;
+      }
+      if (idempotencyKey) idempotent.set(idempotencyKey, { body: bodyText, answer: outcome.answer });
+      if (answersToLose > 0) {
+        answersToLose -= 1;
+        res.socket?.destroy();
+        return true;
+      }
+      sendJson(res, 200, outcome.answer);
       return true;
     }
 
@@ -141,43 +155,35 @@ export async function startMailFake(options: MailFakeOptions = {}): Promise<Mail
     return true;
   }
 
-  function sendOne(res: ServerResponse, body: unknown): unknown {
+  type SendOutcome = { answer: unknown } | { error: MailApiError };
+
+  function sendOne(body: unknown, senderKey: string | null): SendOutcome {
     const parsed = parseEmailPayload(body);
-    if (!parsed.ok) {
-      sendError(res, parsed.error);
-      return undefined;
-    }
-    const answer = { id: store.add(parsed.message).id };
-    sendJson(res, 200, answer);
-    return answer;
+    if (!parsed.ok) return { error: parsed.error };
+    return { answer: { id: store.add(parsed.message, senderKey).id } };
   }
 
-  function sendBatch(req: IncomingMessage, res: ServerResponse, body: unknown): unknown {
+  function sendBatch(req: IncomingMessage, body: unknown, senderKey: string | null): SendOutcome {
     if (!Array.isArray(body) || body.length === 0) {
-      sendError(res, { statusCode: 422, name: "validation_error", message: "The batch must be a non-empty array of emails." });
-      return undefined;
+      return { error: { statusCode: 422, name: "validation_error", message: "The batch must be a non-empty array of emails." } };
     }
     if (body.length > MAX_BATCH) {
-      sendError(res, { statusCode: 422, name: "validation_error", message: `A batch holds at most ${MAX_BATCH} emails.` });
-      return undefined;
+      return { error: { statusCode: 422, name: "validation_error", message: `A batch holds at most ${MAX_BATCH} emails.` } };
     }
     const permissive = req.headers["x-batch-validation"] === "permissive";
     const parsed = body.map(parseEmailPayload);
     const firstBad = parsed.findIndex((p) => !p.ok);
     const firstError = parsed[firstBad];
     if (!permissive && firstError && !firstError.ok) {
-      sendError(res, { ...firstError.error, message: `emails[${firstBad}]: ${firstError.error.message}` });
-      return undefined;
+      return { error: { ...firstError.error, message: `emails[${firstBad}]: ${firstError.error.message}` } };
     }
     const data: { id: string }[] = [];
     const errors: { index: number; message: string }[] = [];
     parsed.forEach((p, index) => {
-      if (p.ok) data.push({ id: store.add(p.message).id });
+      if (p.ok) data.push({ id: store.add(p.message, senderKey).id });
       else errors.push({ index, message: p.error.message });
     });
-    const answer = permissive ? { data, errors } : { data };
-    sendJson(res, 200, answer);
-    return answer;
+    return { answer: permissive ? { data, errors } : { data } };
   }
 
   async function handle(req: IncomingMessage, res: ServerResponse): Promise<void> {
@@ -215,6 +221,17 @@ export async function startMailFake(options: MailFakeOptions = {}): Promise<Mail
         if (typeof wanted !== "boolean") return sendJson(res, 422, { error: "send { down: true } or { down: false }" });
         down = wanted;
         return sendJson(res, 200, { down });
+      }
+    }
+
+    if (path === "/api/lose-answers") {
+      if (req.method === "GET") return sendJson(res, 200, { loseAnswers: answersToLose });
+      if (req.method === "POST") {
+        const read = await readBodyOrError(req);
+        const wanted = "body" in read && typeof read.body === "object" && read.body !== null ? (read.body as { count?: unknown }).count : undefined;
+        if (typeof wanted !== "number" || !Number.isInteger(wanted) || wanted < 0) return sendJson(res, 422, { error: "send { count: N } with a whole number N ≥ 0" });
+        answersToLose = wanted;
+        return sendJson(res, 200, { loseAnswers: answersToLose });
       }
     }
 

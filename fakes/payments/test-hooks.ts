@@ -42,6 +42,14 @@ export function handleTestHook(
     return sendJson(res, 200, { ok: true, down: controls.isDown() });
   }
 
+  if (path === "/hold-webhooks") {
+    if (method === "POST") {
+      if (typeof body.held !== "boolean") return bad(res, "Send { held: true } or { held: false }.");
+      ctx.dispatcher.setHeld(body.held);
+    }
+    return sendJson(res, 200, { ok: true, held: ctx.dispatcher.isHeld() });
+  }
+
   if (path === "/deliveries" && method === "GET") {
     const eventId = url.searchParams.get("event_id");
     const type = url.searchParams.get("type");

@@ -49,6 +49,8 @@ export class WebhookDispatcher {
   private readonly timers = new Set<NodeJS.Timeout>();
   private readonly inFlight = new Set<http.ClientRequest>();
   private closed = false;
+  /** a test switch: while held, deliveries wait in their queues, as when the provider's event delivery lags */
+  private held = false;
 
   constructor(
     private readonly options: DispatcherOptions,
@@ -111,6 +113,16 @@ export class WebhookDispatcher {
     return true;
   }
 
+  isHeld(): boolean {
+    return this.held;
+  }
+
+  /** Holds deliveries (none starts; one already on the wire finishes), or lets them go in order. */
+  setHeld(held: boolean): void {
+    this.held = held;
+    if (!held) for (const endpoint of this.endpoints) this.pump(endpoint);
+  }
+
   close(): void {
     this.closed = true;
     for (const timer of this.timers) clearTimeout(timer);
@@ -120,7 +132,7 @@ export class WebhookDispatcher {
   }
 
   private pump(endpoint: EndpointQueue): void {
-    if (this.closed || endpoint.busy) return;
+    if (this.closed || this.held || endpoint.busy) return;
     const head = endpoint.queue[0];
     if (!head) return;
     endpoint.busy = true;
@@ -163,6 +175,11 @@ export class WebhookDispatcher {
     delivery.next_attempt_at = new Date(Date.now() + delay).toISOString();
     const timer = setTimeout(() => {
       this.timers.delete(timer);
+      if (this.held) {
+        // Stays at the head of its queue; setHeld(false) tries it again.
+        endpoint.busy = false;
+        return;
+      }
       void this.attempt(endpoint, delivery);
     }, delay);
     this.timers.add(timer);

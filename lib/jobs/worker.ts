@@ -12,6 +12,29 @@ import { QUEUES, RETRY, type QueueName } from "./queues";
 
 const SWEEP_MS = 15_000;
 
+// Connection failures: the database restarting, failing over or briefly unreachable.
+const CONNECTION_CODES = new Set(["ECONNREFUSED", "ECONNRESET", "EPIPE", "ETIMEDOUT", "57P01", "57P02", "57P03", "08000", "08001", "08003", "08006"]);
+
+function isConnectionLoss(reason: unknown): boolean {
+  if (!(reason instanceof Error)) return false;
+  const code = (reason as { code?: unknown }).code;
+  if (typeof code === "string" && CONNECTION_CODES.has(code)) return true;
+  return /Connection terminated|not queryable|timeout exceeded when trying to connect/i.test(reason.message);
+}
+
+// pg-boss 10 does not await its own complete()/fail() after a handler (src/manager.js, work()), so a
+// database that goes away at that moment surfaces here. The job stays active until pg-boss expires and
+// retries it (and mail is re-queued by the sweep below), so the worker carries on. Anything else is a
+// bug: exit, and let the supervisor start a fresh worker.
+process.on("unhandledRejection", (reason) => {
+  if (isConnectionLoss(reason)) {
+    console.error("[worker] lost the database while recording a job's outcome; it is retried later:", (reason as Error).message);
+    return;
+  }
+  console.error("[worker] unhandled rejection:", reason);
+  process.exit(1);
+});
+
 async function main() {
   const boss = new PgBoss({ connectionString: env().DATABASE_URL, max: 4 });
   boss.on("error", (error) => console.error("[worker]", error.message));
