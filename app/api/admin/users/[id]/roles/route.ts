@@ -1,21 +1,19 @@
 import { NextResponse } from "next/server";
 import { changeRole, NotFoundError } from "@/db/queries/users";
 import { guardRoute } from "@/lib/auth/guard";
-import { roleChangeSchema } from "@/lib/validations/admin";
+import { jsonError, parseJsonBody } from "@/lib/http/json";
+import { roleChangeSchema, userIdSchema } from "@/lib/validations/admin";
 import type { Role } from "@/db/schema/users";
 
 export const dynamic = "force-dynamic";
 
 export const POST = guardRoute<{ id: string }>(["admin"], async (request, admin, { params }) => {
   const { id } = await params;
-  const body: unknown = await request.json().catch(() => undefined);
-  const parsed = roleChangeSchema.safeParse(body);
-  if (!parsed.success) {
-    return NextResponse.json(
-      { error: "invalid_input", message: "The role change is not valid.", fieldErrors: parsed.error.flatten().fieldErrors },
-      { status: 422 },
-    );
-  }
+  // An id PostgreSQL could not even compare names nobody.
+  if (!userIdSchema.safeParse(id).success) return jsonError(404, "not_found", "No such user.");
+  // The shared reader: a size limit before parsing, and field errors (or "" for the body as a whole).
+  const parsed = await parseJsonBody(request, roleChangeSchema);
+  if (!parsed.ok) return parsed.response;
   const { role, grant } = parsed.data;
   if (id === admin.id && role === "admin" && !grant) {
     return NextResponse.json({ error: "conflict", message: "You cannot revoke your own admin role; ask another admin." }, { status: 409 });
