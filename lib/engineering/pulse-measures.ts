@@ -37,7 +37,8 @@ const MIN_STATE_OCCUPANCY = 0.3;
 /** A transition has ended once the signal is within 2 % of the amplitude of its new level (common practice). */
 const SETTLED = 0.02;
 
-type Transition = { direction: 1 | -1; proximalS: number; mesialS: number; distalS: number; endIndex: number };
+/** `startIndex`: the last sample before the transition left its old level; `endIndex`: the first past 90 % (or 10 %). */
+type Transition = { direction: 1 | -1; proximalS: number; mesialS: number; distalS: number; startIndex: number; endIndex: number };
 
 /** Measures a pulse train. Levels need only two samples; timing figures need two complete periods. */
 export function measurePulses(input: PulseInput): PulseMeasurement {
@@ -282,7 +283,7 @@ function transition(
   let j = firstAfter - 1;
   while (j > lastBefore && (direction === 1 ? values[j]! >= ref.mesial50 : values[j]! <= ref.mesial50)) j -= 1;
   const mesialS = crossing(timeS, values, j, ref.mesial50);
-  return { direction, proximalS, mesialS, distalS, endIndex: firstAfter };
+  return { direction, proximalS, mesialS, distalS, startIndex: lastBefore, endIndex: firstAfter };
 }
 
 /** The instant between samples i and i + 1 where the straight line between them meets `level`. */
@@ -299,7 +300,9 @@ function crossing(timeS: ArrayLike<number>, values: ArrayLike<number>, i: number
 /**
  * Post-transition aberrations (IEEE Std 181): overshoot is the greatest excursion beyond the final
  * state level in the direction of the transition; undershoot the greatest excursion back short of it.
- * The region runs from the end of the transition to the start of the next (or the end of the capture).
+ * IEEE Std 181 leaves the region's length to the user: here it is the first half of the time between
+ * the transition's end and the next transition's start (or the end of the capture), long enough for
+ * ringing to show and short of the next edge's foot, which is not an aberration of this one.
  */
 function measureAberrations(
   values: ArrayLike<number>,
@@ -315,11 +318,12 @@ function measureAberrations(
   for (let k = 0; k < transitions.length; k += 1) {
     const t = transitions[k]!;
     const next = transitions[k + 1];
-    // The region starts once the signal has reached its new level (within SETTLED of the amplitude), so the
-    // last part of a finite edge is not taken for undershoot; it ends where the next transition starts.
-    const from = settledFrom(values, t.endIndex, next ? next.endIndex : values.length, t.direction, low, high, amplitude);
+    // The region starts once the signal has reached its new level, so the last part of a finite edge is
+    // not taken for undershoot.
+    const regionEnd = next ? next.startIndex + 1 : values.length;
+    const from = settledFrom(values, t.endIndex, regionEnd, t.direction, low, high, amplitude);
     if (from === -1) continue;
-    const to = next ? Math.max(from + 1, findRegionEnd(values, from, next.endIndex, t.direction, low, high, amplitude)) : values.length;
+    const to = from + Math.max(1, Math.ceil((regionEnd - from) / 2));
     let peak = -Infinity;
     let dip = Infinity;
     for (let i = from; i < to; i += 1) {
@@ -336,23 +340,19 @@ function measureAberrations(
   return { overshootPct: (100 * overshootSum) / counted, undershootPct: (100 * undershootSum) / counted };
 }
 
+/**
+ * Where the transition has ended: the first sample at or beyond the new level, or — for a signal that
+ * approaches it without reaching it — the first within SETTLED of it. -1 when neither happens.
+ */
 function settledFrom(values: ArrayLike<number>, from: number, until: number, direction: 1 | -1, low: number, high: number, amplitude: number): number {
   const near = SETTLED * amplitude;
+  let within = -1;
   for (let i = from; i < until; i += 1) {
     const v = values[i]!;
-    if (direction === 1 ? v >= high - near : v <= low + near) return i;
+    if (direction === 1 ? v >= high : v <= low) return i;
+    if (within === -1 && (direction === 1 ? v >= high - near : v <= low + near)) within = i;
   }
-  return -1;
-}
-
-/** The last sample before `until` that still lies within the state band the signal settled into. */
-function findRegionEnd(values: ArrayLike<number>, from: number, until: number, direction: 1 | -1, low: number, high: number, amplitude: number): number {
-  const level = direction === 1 ? high : low;
-  const band = STATE_TOLERANCE * amplitude;
-  for (let i = until - 1; i >= from; i -= 1) {
-    if (Math.abs(values[i]! - level) <= band) return i + 1;
-  }
-  return from + 1;
+  return within;
 }
 
 function mean(xs: number[]): number {
