@@ -9,3 +9,4 @@ export * from "./orders";
 export * from "./bench";
 export * from "./qa";
 export * from "./reviews";
+export * from "./captures";

@@ -11,6 +11,15 @@ import { mergeCartAtSignIn } from "@/lib/checkout/cart-owner";
 
 const LINK_MINUTES = 30;
 
+/**
+ * Secure cookies whenever the public address is https. Left alone, Auth.js decides from the
+ * request's own protocol, which behind a TLS-terminating proxy that forwards no protocol is http;
+ * undefined keeps that rule (AUTH_URL on https) for local addresses.
+ */
+export function secureCookiesFor(appUrl: string): true | undefined {
+  return appUrl.startsWith("https://") ? true : undefined;
+}
+
 // Configured lazily so that building the app needs no database or secrets.
 export const { handlers, auth, signIn, signOut } = NextAuth(() => {
   const config = env();
@@ -25,6 +34,10 @@ export const { handlers, auth, signIn, signOut } = NextAuth(() => {
     secret: config.AUTH_SECRET,
     trustHost: true,
     session: { strategy: "database", maxAge: 30 * 24 * 60 * 60 },
+    useSecureCookies: secureCookiesFor(config.APP_URL),
+    // Pinned rather than left to the library's defaults: no script reads the session, and another
+    // site's POST or subrequest does not carry it (RFC 6265bis, SameSite=Lax).
+    cookies: { sessionToken: { options: { httpOnly: true, sameSite: "lax", path: "/" } } },
     pages: { signIn: "/sign-in", verifyRequest: "/sign-in/check-email", error: "/sign-in/problem" },
     providers: [
       Resend({

@@ -1,26 +1,13 @@
 import type { z } from "zod";
 import { EngineeringInputError } from "@/lib/engineering/errors";
+import { crossSiteRefusal } from "./cross-site";
+import { invalidInput, jsonError, type FieldErrors } from "./json-error";
 
-/** Field path ("declaration.mainsVrms") → messages; "" holds errors about the body as a whole. */
-export type FieldErrors = Record<string, string[]>;
-
-export interface JsonErrorBody {
-  error: string;
-  message: string;
-  fieldErrors?: FieldErrors;
-}
-
-export function jsonError(status: number, code: string, message: string, fieldErrors?: FieldErrors): Response {
-  const body: JsonErrorBody = fieldErrors ? { error: code, message, fieldErrors } : { error: code, message };
-  return Response.json(body, { status });
-}
-
-export function invalidInput(message: string, fieldErrors: FieldErrors = {}): Response {
-  return jsonError(422, "invalid_input", message, fieldErrors);
-}
+export { invalidInput, jsonError, type FieldErrors, type JsonErrorBody } from "./json-error";
 
 export function fieldErrorsFromZod(error: z.ZodError): FieldErrors {
-  const out: FieldErrors = {};
+  // Prototype-free, so a field path such as "constructor" cannot reach Object.prototype.
+  const out: FieldErrors = Object.create(null);
   for (const issue of error.issues) {
     const key = issue.path.map(String).join(".");
     (out[key] ??= []).push(issue.message);
@@ -33,11 +20,29 @@ const MAX_BODY_BYTES = 64 * 1024;
 
 export type ParsedBody<T> = { ok: true; data: T } | { ok: false; response: Response };
 
-/** Reads a JSON body and validates it; on failure `response` is the 413/422 to send back. */
+const NOT_JSON = "Send the body as JSON, with the header Content-Type: application/json.";
+
+/**
+ * A form on another site can post text/plain, urlencoded or multipart bodies without the browser
+ * asking first (a CORS "simple request", Fetch standard §3.2.3); `application/json` cannot be sent
+ * that way. So a JSON route that insists on it cannot be driven by another site's form.
+ */
+function isJsonContentType(request: Request): boolean {
+  const mediaType = request.headers.get("content-type")?.split(";")[0]?.trim().toLowerCase();
+  return mediaType === "application/json";
+}
+
+function notJson(): Response {
+  return jsonError(415, "unsupported_media_type", NOT_JSON, { "": [NOT_JSON] });
+}
+
+/** Reads a JSON body and validates it; on failure `response` is the 403/413/415/422 to send back. */
 export async function parseJsonBody<S extends z.ZodType>(
   request: Request,
   schema: S,
 ): Promise<ParsedBody<z.output<S>>> {
+  const crossSite = crossSiteRefusal(request);
+  if (crossSite) return { ok: false, response: crossSite };
   const text = await request.text();
   if (new TextEncoder().encode(text).length > MAX_BODY_BYTES) {
     return { ok: false, response: jsonError(413, "payload_too_large", "The request body is too large.") };
@@ -48,6 +53,8 @@ export async function parseJsonBody<S extends z.ZodType>(
   } catch {
     return { ok: false, response: invalidInput("The request body is not valid JSON.", { "": ["Send a JSON object."] }) };
   }
+  // Checked after the syntax, so broken text is a 422 whatever it was labelled; valid JSON sent as a simple request is refused.
+  if (!isJsonContentType(request)) return { ok: false, response: notJson() };
   const result = schema.safeParse(raw);
   if (!result.success) {
     return { ok: false, response: invalidInput("Some inputs are missing or out of range.", fieldErrorsFromZod(result.error)) };
@@ -86,16 +93,27 @@ export async function handleJsonPost<S extends z.ZodType>(
 // Action bodies (a reason or two) are small; anything larger is not one.
 const MAX_ACTION_BODY_BYTES = 32 * 1024;
 
-/** Reads an optional JSON object body: an empty body is `{}`, so `approve` can be posted bare. */
-export async function readOptionalJson(request: Request): Promise<{ ok: true; body: unknown } | { ok: false; response: Response }> {
+/**
+ * Reads an optional JSON object body: an empty body is `{}`, so `approve` can be posted bare. A
+ * bare POST still has to come from this site; a body has to be declared JSON.
+ */
+export async function readOptionalJson(
+  request: Request,
+  { maxBytes = MAX_ACTION_BODY_BYTES }: { maxBytes?: number } = {},
+): Promise<{ ok: true; body: unknown } | { ok: false; response: Response }> {
+  const crossSite = crossSiteRefusal(request);
+  if (crossSite) return { ok: false, response: crossSite };
   const text = await request.text();
-  if (new TextEncoder().encode(text).length > MAX_ACTION_BODY_BYTES) {
+  if (new TextEncoder().encode(text).length > maxBytes) {
     return { ok: false, response: jsonError(413, "payload_too_large", "The request body is too large.") };
   }
   if (text.trim() === "") return { ok: true, body: {} };
+  let body: unknown;
   try {
-    return { ok: true, body: JSON.parse(text) };
+    body = JSON.parse(text);
   } catch {
     return { ok: false, response: jsonError(422, "invalid_input", "The request body is not valid JSON.", { "": ["Send a JSON object."] }) };
   }
+  if (!isJsonContentType(request)) return { ok: false, response: notJson() };
+  return { ok: true, body };
 }

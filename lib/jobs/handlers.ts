@@ -4,6 +4,7 @@ import { sweepCheckouts } from "@/lib/payments/checkout";
 import { enforceGracePeriods, recheckLiveListings } from "@/lib/moderation/recheck";
 import { settlePendingRefunds } from "@/db/queries/orders";
 import { expireOverdueReviews } from "@/lib/reviews/sweep";
+import { runCaptureMeasureJob, sweepStrandedCaptures } from "@/lib/captures/jobs";
 import type { JobPayloads, QueueName } from "./queues";
 
 type Handler<Q extends QueueName> = (data: JobPayloads[Q]) => Promise<unknown>;
@@ -16,6 +17,8 @@ export const JOB_HANDLERS: { [Q in QueueName]?: Handler<Q> } = {
   "policy-enforce-grace": async () => enforceGracePeriods(),
   "refunds-settle": async () => settlePendingRefunds(),
   "reviews-expire": async () => expireOverdueReviews(new Date()),
+  "capture-measure": async ({ captureId }) => runCaptureMeasureJob(captureId),
+  "captures-sweep": async () => sweepStrandedCaptures(),
 };
 
 /** Scheduled jobs (cron, UTC). */
@@ -28,4 +31,6 @@ export const SCHEDULES: { queue: QueueName; cron: string }[] = [
   { queue: "refunds-settle", cron: "*/5 * * * *" },
   // Review requests past 48 h expire and their holds are released; undisputed reports close after 7 days.
   { queue: "reviews-expire", cron: "*/5 * * * *" },
+  // Captures whose measuring job was never queued, or whose worker stopped: every minute.
+  { queue: "captures-sweep", cron: "* * * * *" },
 ];

@@ -6,6 +6,8 @@ export const QUEUES = {
   checkoutSweep: "checkout-sweep",
   refundsSettle: "refunds-settle",
   reviewsExpire: "reviews-expire",
+  captureMeasure: "capture-measure",
+  capturesSweep: "captures-sweep",
 } as const;
 
 export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
@@ -17,6 +19,8 @@ export type JobPayloads = {
   "checkout-sweep": Record<string, never>;
   "refunds-settle": Record<string, never>;
   "reviews-expire": Record<string, never>;
+  "capture-measure": { captureId: string };
+  "captures-sweep": Record<string, never>;
 };
 
 /** Retries with exponential back-off: a provider outage of an hour or so loses nothing. */

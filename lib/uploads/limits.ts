@@ -62,8 +62,9 @@ export const UPLOAD_ROUTES: Record<UploadRouteName, UploadRouteRule> = {
     maxFiles: 4,
     // The declared type is what the store later serves the file as, so nothing a browser
     // would render as a page or run as a script.
-    contentTypes: ["text/csv", "text/plain", "application/octet-stream", ""],
-    accept: ".csv,.txt,.bin,.dat,text/csv,text/plain",
+    // Windows browsers with a spreadsheet program installed declare .csv as application/vnd.ms-excel.
+    contentTypes: ["text/csv", "text/plain", "text/tab-separated-values", "application/vnd.ms-excel", "application/octet-stream", ""],
+    accept: ".csv,.tsv,.txt,.bin,.dat,text/csv,text/plain",
   },
 };
 

@@ -3,7 +3,7 @@ import type { z } from "zod";
 import { OrderError, type RefundOutcome } from "@/db/queries/orders";
 import { guardRoute } from "@/lib/auth/guard";
 import type { SessionUser } from "@/lib/auth/access";
-import { fieldErrorsFromZod, invalidInput, jsonError } from "@/lib/http/json";
+import { fieldErrorsFromZod, invalidInput, jsonError, readOptionalJson } from "@/lib/http/json";
 
 // The shape every POST under /api/orders/[id]/… shares: 401 from the session guard, then the body
 // (an empty body is `{}`), then the domain call, whose OrderError becomes 403/404/409/422.
@@ -13,16 +13,8 @@ const CODES: Record<number, string> = { 403: "forbidden", 404: "not_found", 409:
 
 export type OrderRouteParams = { id: string; returnId?: string };
 
-async function readBody(request: Request): Promise<{ ok: true; body: unknown } | { ok: false; response: Response }> {
-  const text = await request.text();
-  if (new TextEncoder().encode(text).length > MAX_BODY_BYTES) return { ok: false, response: jsonError(413, "payload_too_large", "The request body is too large.") };
-  if (text.trim() === "") return { ok: true, body: {} };
-  try {
-    return { ok: true, body: JSON.parse(text) };
-  } catch {
-    return { ok: false, response: invalidInput("The request body is not valid JSON.", { "": ["Send a JSON object."] }) };
-  }
-}
+// The shared reader also refuses a request another site made the browser send (Origin, Content-Type).
+const readBody = (request: Request) => readOptionalJson(request, { maxBytes: MAX_BODY_BYTES });
 
 export function parseWith<S extends z.ZodType>(schema: S, body: unknown): { ok: true; data: z.output<S> } | { ok: false; response: Response } {
   const parsed = schema.safeParse(body);

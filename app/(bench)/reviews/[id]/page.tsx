@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { AccessDenied } from "@/components/access/access-denied";
+import { ReviewCaptureList } from "@/components/captures/review-capture-list";
 import { MainsCaution } from "@/components/caution";
 import { ReportView } from "@/components/reviews/report-view";
 import { NextStep } from "@/components/reviews/next-step";
@@ -13,6 +14,7 @@ import { ButtonLink } from "@/components/ui/button";
 import { PageHeader } from "@/components/ui/page-header";
 import { Panel } from "@/components/ui/panel";
 import { getLogForViewer } from "@/db/queries/bench";
+import { capturesOfLog } from "@/db/queries/captures";
 import { sessionForViewer } from "@/db/queries/reviews";
 import { checkAccess } from "@/lib/auth/guard";
 import { formatMoney } from "@/lib/format/money";
@@ -38,6 +40,7 @@ export default async function ReviewSessionPage({ params, searchParams }: { para
   const session = await sessionForViewer(access.user, id);
   if (!session) notFound();
   const log = await getLogForViewer(access.user, session.logId);
+  const captures = log ? await capturesOfLog(log.id, log.access) : [];
   const now = new Date();
   const actions = availableActions(session, { kind: "user", id: access.user.id, roles: access.user.roles }, now);
   const openDispute = session.disputes.find((d) => d.outcome === "open");
@@ -102,7 +105,15 @@ export default async function ReviewSessionPage({ params, searchParams }: { para
         </div>
       </div>
       {log ? (
-        <SharedLog log={log} stages={session.stages} />
+        <>
+          <SharedLog log={log} stages={session.stages} />
+          <Panel title="Scope captures">
+            <p className="mb-3 text-sm text-graphite-600">
+              Open a capture to read its trace and figures{session.viewerRole === "reviewer" ? " and pin comments to points on it" : " and the reviewer's comments on it"}.
+            </p>
+            <ReviewCaptureList sessionId={session.id} captures={captures} />
+          </Panel>
+        </>
       ) : session.viewerRole === "reviewer" ? (
         <Alert tone="info" title="The log is shared once you accept">
           Until then you see the booking only.

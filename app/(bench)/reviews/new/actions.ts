@@ -2,6 +2,8 @@
 
 import { redirect } from "next/navigation";
 import { requireUser } from "@/lib/auth/guard";
+import { enforceRateLimit, RateLimitedError } from "@/lib/rate-limit";
+import { reviewRequestLimit, reviewRequestRefusal } from "@/lib/rate-limit/posting";
 import { invalidReviewForm, reviewFailure } from "@/lib/reviews/form-result";
 import { startBooking } from "@/lib/reviews/payments";
 import type { FormResult } from "@/lib/validations/auth";
@@ -19,8 +21,10 @@ export async function bookReview(_previous: FormResult | null, form: FormData): 
       message: String(form.get("message") ?? ""),
     });
     if (!parsed.success) return invalidReviewForm(parsed.error);
+    await enforceRateLimit(reviewRequestLimit(user.id), reviewRequestRefusal);
     url = (await startBooking(user, parsed.data)).url;
   } catch (error) {
+    if (error instanceof RateLimitedError) return { ok: false, message: error.message, fieldErrors: {} };
     return reviewFailure(error, "book");
   }
   redirect(url);

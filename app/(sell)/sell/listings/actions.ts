@@ -6,6 +6,8 @@ import { createListingDraft, ListingError, retireListing, submitListing, updateL
 import { AccessDeniedError, requireUser } from "@/lib/auth/guard";
 import type { SessionUser } from "@/lib/auth/access";
 import { fieldErrorsFromZod } from "@/lib/http/json";
+import { enforceRateLimit, RateLimitedError } from "@/lib/rate-limit";
+import { listingSubmissionLimit, listingSubmissionRefusal } from "@/lib/rate-limit/posting";
 import { listingDraftSchema, listingSubmitSchema } from "@/lib/validations/listings";
 
 export type SaveListingResult =
@@ -20,6 +22,7 @@ function actorOf(user: SessionUser) {
 
 function failure(error: unknown, savedNote = ""): SaveListingResult {
   if (error instanceof AccessDeniedError) return { ok: false, message: error.message, fieldErrors: {} };
+  if (error instanceof RateLimitedError) return { ok: false, message: `${savedNote}${error.message}`, fieldErrors: {} };
   if (error instanceof ListingError) return { ok: false, message: `${savedNote}${error.message}`, fieldErrors: error.fieldErrors };
   console.error("[sell/listings] unexpected error", error);
   return { ok: false, message: savedNote ? `${savedNote}It could not be submitted just now; try again.` : UNEXPECTED, fieldErrors: {} };
@@ -71,6 +74,7 @@ export async function saveListing(listingId: string | null, raw: unknown, intent
     }
     let refused: SaveListingResult | null = null;
     try {
+      await enforceRateLimit(listingSubmissionLimit(user.id), listingSubmissionRefusal);
       await submitListing(actorOf(user), id);
     } catch (error) {
       refused = failure(error, saved);

@@ -3,6 +3,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { AddCheckpointForm } from "@/components/bench/add-checkpoint-form";
 import { CheckpointCard } from "@/components/bench/checkpoint-card";
+import { CheckpointCaptures, type CaptureActions } from "@/components/captures/checkpoint-captures";
 import { formatRange } from "@/components/bench/format";
 import { RecordReadingForm } from "@/components/bench/record-reading-form";
 import { StageProgress } from "@/components/bench/stage-progress";
@@ -14,11 +15,14 @@ import { PageHeader } from "@/components/ui/page-header";
 import { Panel } from "@/components/ui/panel";
 import { StateBadge } from "@/components/ui/state-badge";
 import { getLogForViewer, type LogAccess } from "@/db/queries/bench";
+import { capturesOfLog } from "@/db/queries/captures";
 import { BRING_UP_STAGES } from "@/db/schema/listings";
 import { unitChoices } from "@/lib/bench/unit-choices";
 import { getSessionUser } from "@/lib/auth/guard";
 import { STAGE_LABELS } from "@/lib/listings/labels";
+import { captureStatusView } from "@/lib/captures/status-view";
 import { addCheckpointAction, recordReadingAction, setVisibilityAction } from "./actions";
+import { attachCaptureAction, confirmProposalAction, removeCaptureAction } from "./capture-actions";
 
 export const metadata: Metadata = { title: "Bring-up log" };
 export const dynamic = "force-dynamic";
@@ -38,6 +42,15 @@ export default async function LogPage({ params }: { params: Promise<{ id: string
 
   const stageOptions = BRING_UP_STAGES.map((stage) => ({ value: stage, label: STAGE_LABELS[stage] }));
   const record = recordReadingAction.bind(null, log.id);
+  const captures = (await capturesOfLog(log.id, log.access)).map(captureStatusView);
+  const logId = log.id;
+  const captureActions: CaptureActions | undefined = log.canEdit
+    ? {
+        attach: attachCaptureAction.bind(null, logId),
+        confirmFor: (captureId) => confirmProposalAction.bind(null, logId, captureId),
+        removeFor: (captureId) => removeCaptureAction.bind(null, logId, captureId),
+      }
+    : undefined;
 
   return (
     <article className="space-y-8" data-testid="log-page" data-access={log.access}>
@@ -77,24 +90,26 @@ export default async function LogPage({ params }: { params: Promise<{ id: string
                   <p className="text-sm text-graphite-600">No checkpoints at this stage{log.canEdit ? " yet; add your own beside the progress." : "."}</p>
                 ) : (
                   checkpoints.map((checkpoint) => (
-                    <CheckpointCard
-                      key={checkpoint.id}
-                      checkpoint={checkpoint}
-                      form={
-                        log.canEdit ? (
-                          <RecordReadingForm
-                            checkpoint={{
-                              id: checkpoint.id,
-                              name: checkpoint.name,
-                              unit: checkpoint.unit,
-                              range: formatRange(checkpoint.expectedMin, checkpoint.expectedMax, checkpoint.unit),
-                            }}
-                            units={unitChoices(checkpoint.unit).units}
-                            action={record}
-                          />
-                        ) : undefined
-                      }
-                    />
+                    <div key={checkpoint.id}>
+                      <CheckpointCard
+                        checkpoint={checkpoint}
+                        form={
+                          log.canEdit ? (
+                            <RecordReadingForm
+                              checkpoint={{
+                                id: checkpoint.id,
+                                name: checkpoint.name,
+                                unit: checkpoint.unit,
+                                range: formatRange(checkpoint.expectedMin, checkpoint.expectedMax, checkpoint.unit),
+                              }}
+                              units={unitChoices(checkpoint.unit).units}
+                              action={record}
+                            />
+                          ) : undefined
+                        }
+                      />
+                      <CheckpointCaptures checkpoint={checkpoint} captures={captures.filter((c) => c.checkpoint.id === checkpoint.id)} actions={captureActions} />
+                    </div>
                   ))
                 )}
               </section>
