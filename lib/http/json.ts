@@ -6,11 +6,13 @@ import { invalidInput, jsonError, type FieldErrors } from "./json-error";
 export { invalidInput, jsonError, type FieldErrors, type JsonErrorBody } from "./json-error";
 
 export function fieldErrorsFromZod(error: z.ZodError): FieldErrors {
-  // Prototype-free, so a field path such as "constructor" cannot reach Object.prototype.
-  const out: FieldErrors = Object.create(null);
+  // A plain object (server actions hand it to client components), filled through own properties only,
+  // so a field path such as "constructor" or "__proto__" cannot reach Object.prototype.
+  const out: FieldErrors = {};
   for (const issue of error.issues) {
     const key = issue.path.map(String).join(".");
-    (out[key] ??= []).push(issue.message);
+    if (!Object.hasOwn(out, key)) Object.defineProperty(out, key, { value: [], enumerable: true, writable: true, configurable: true });
+    out[key]!.push(issue.message);
   }
   return out;
 }
