@@ -1,28 +1,27 @@
 import type { Metadata } from "next";
-import { CatalogBrowser } from "@/components/catalog/catalog-browser";
-import { Alert } from "@/components/ui/alert";
+import { Suspense } from "react";
 import { PageHeader } from "@/components/ui/page-header";
-import { listCatalogSellers, searchListings } from "@/db/queries/catalog";
 import { lenientCatalogQuery } from "@/lib/validations/catalog";
+import { CatalogResults } from "./catalog-results";
+import { CatalogResultsSkeleton } from "./catalog-results-skeleton";
 
 export const metadata: Metadata = { title: "Catalog" };
 export const dynamic = "force-dynamic";
 
 type Props = { searchParams: Promise<Record<string, string | string[] | undefined>> };
 
+// The header goes out with the first bytes and the results stream in behind it, so the page
+// paints its largest text before the search has run (Lighthouse's LCP on a large catalog).
+// No key on the boundary: refining a search re-renders the page in a transition, which keeps the
+// results on screen instead of the skeleton.
 export default async function CatalogPage({ searchParams }: Props) {
   const { query, ignored } = lenientCatalogQuery(await searchParams);
-  const [result, sellers] = await Promise.all([searchListings(query), listCatalogSellers()]);
-  const ignoredMessages = Object.values(ignored).flat();
   return (
     <div className="space-y-6">
       <PageHeader title="Catalog" lede="Boards, hand-wound magnetics and kits, each with a safety sheet a moderator has checked." />
-      {ignoredMessages.length > 0 ? (
-        <Alert tone="caution" title="Part of this address was not understood">
-          Those filters were left out: {ignoredMessages.join(" ")}
-        </Alert>
-      ) : null}
-      <CatalogBrowser initialQuery={query} initialResult={result} sellers={sellers} />
+      <Suspense fallback={<CatalogResultsSkeleton />}>
+        <CatalogResults query={query} ignoredMessages={Object.values(ignored).flat()} />
+      </Suspense>
     </div>
   );
 }
