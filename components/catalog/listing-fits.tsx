@@ -2,7 +2,7 @@ import "server-only";
 import Link from "next/link";
 import { Figure } from "@/components/ui/figure";
 import { Panel } from "@/components/ui/panel";
-import { kitsFittedByMagnetic, magneticsFittingKit } from "@/db/queries/catalog";
+import { KITS_PER_MAGNETIC, kitsFittedByMagnetic, magneticsFittingKit } from "@/db/queries/catalog";
 import type { ListingKind } from "@/db/schema/listings";
 import { formatMoney } from "@/lib/format/money";
 import { subtypeLabel } from "@/lib/listings/labels";
@@ -11,8 +11,10 @@ const stockWords = (stock: number) => (stock > 0 ? `${stock} in stock` : "out of
 
 /** "Kits this part fits" on a magnetic's page; nothing when no live kit asks for it. */
 export async function KitsThisPartFits({ listingId }: { listingId: string }) {
-  const kits = await kitsFittedByMagnetic(listingId);
-  if (kits.length === 0) return null;
+  const found = await kitsFittedByMagnetic(listingId);
+  if (found.length === 0) return null;
+  const kits = found.slice(0, KITS_PER_MAGNETIC);
+  const more = found.length > KITS_PER_MAGNETIC;
   return (
     <Panel title="Kits this part fits">
       <p className="mb-3 max-w-reading text-sm text-graphite-700">Live kits whose stated need this part meets, by its subtype, inductance and rated current.</p>
@@ -28,6 +30,11 @@ export async function KitsThisPartFits({ listingId }: { listingId: string }) {
           </li>
         ))}
       </ul>
+      {more ? (
+        <p className="mt-3 text-sm text-graphite-600">
+          More kits ask for a part like this one; <Link href="/catalog?kind=kit">browse the kits in the catalog</Link>.
+        </p>
+      ) : null}
     </Panel>
   );
 }

@@ -202,8 +202,11 @@ export type FittedKit = {
   requirementLabel: string;
 };
 
-/** Live kits with a requirement that the given magnetic meets; each kit once, by title. */
-export async function kitsFittedByMagnetic(magneticId: string): Promise<FittedKit[]> {
+// A part may fit thousands of kits in a large catalog; the page names a handful and says there are more.
+export const KITS_PER_MAGNETIC = 12;
+
+/** Live kits with a requirement that the given magnetic meets; each kit once, by title, at most `limit`. */
+export async function kitsFittedByMagnetic(magneticId: string, limit = KITS_PER_MAGNETIC + 1): Promise<FittedKit[]> {
   const magnetic = alias(listings, "magnetic");
   const kit = alias(listings, "kit");
   return db
@@ -220,7 +223,8 @@ export async function kitsFittedByMagnetic(magneticId: string): Promise<FittedKi
     .innerJoin(listingRequirements, fitCondition(magnetic, listingRequirements))
     .innerJoin(kit, eq(kit.id, listingRequirements.listingId))
     .where(and(eq(magnetic.id, magneticId), eq(magnetic.kind, "magnetic"), eq(kit.state, "live"), eq(kit.kind, "kit")))
-    .orderBy(asc(kit.title), asc(kit.id), asc(listingRequirements.label));
+    .orderBy(asc(kit.title), asc(kit.id), asc(listingRequirements.label))
+    .limit(limit);
 }
 
 export type FittingMagnetic = {

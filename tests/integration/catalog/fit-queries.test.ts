@@ -103,6 +103,12 @@ describe("kitsFittedByMagnetic", () => {
     expect((await catalog.kitsFittedByMagnetic(id("main-transformer"))).map((k) => k.slug)).toEqual(["bench-kit"]);
   });
 
+  it("names at most the limit asked for, in title order, so a part that fits thousands of kits keeps its page small", async () => {
+    const all = await catalog.kitsFittedByMagnetic(id("choke-22"));
+    expect(all.length).toBeGreaterThan(1);
+    expect(await catalog.kitsFittedByMagnetic(id("choke-22"), 1)).toEqual(all.slice(0, 1));
+  });
+
   it("a board fits nothing", async () => {
     expect(await catalog.kitsFittedByMagnetic(id("gate-drive"))).toEqual([]);
   });
