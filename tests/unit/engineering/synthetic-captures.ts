@@ -1,5 +1,6 @@
 // Synthetic oscilloscope captures with known parameters, so expected pulse figures follow from the
 // IEEE Std 181 definitions rather than from our own measuring code.
+import { seededGaussian } from "../../support/captures";
 
 export type PulseSpec = {
   sampleRateHz: number;
@@ -74,21 +75,8 @@ export function dampedSineLobes(factor: number, frequencyHz: number, decayS: num
   return { first: peak(t1), second: -peak(t1 + Math.PI / w) };
 }
 
-/** Mulberry32 uniform generator with a Box–Muller transform: repeatable Gaussian noise. */
-export function gaussian(seed: number): () => number {
-  let state = seed >>> 0;
-  const uniform = () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-  return () => {
-    const u = Math.max(uniform(), 1e-12);
-    return Math.sqrt(-2 * Math.log(u)) * Math.cos(2 * Math.PI * uniform());
-  };
-}
+/** Repeatable Gaussian noise: the seeded Box–Muller generator the capture tests share. */
+export const gaussian = seededGaussian;
 
 export type CsvDialect = { delimiter: "," | ";" | "\t"; decimalComma?: boolean; newline?: "\n" | "\r\n" };
 
