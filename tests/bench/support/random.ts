@@ -1,17 +1,9 @@
 // A seeded generator, so the same row index always gives the same row: 10,000 listings grown to
 // 100,000 are the same 100,000 as generated in one go, and every run measures the same data.
+import { seededRandom } from "../../support/captures";
 
-/** mulberry32: a small 32-bit generator, plenty for test data. */
-export function seeded(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+/** mulberry32, the seeded generator the capture tests use too. */
+export const seeded = seededRandom;
 
 /** One generator per (stream, row): rows do not depend on how many rows came before them. */
 export function rowRandom(stream: number, index: number): Rng {
