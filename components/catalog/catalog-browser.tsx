@@ -4,6 +4,7 @@ import { keepPreviousData, useQuery } from "@tanstack/react-query";
 import { usePathname, useRouter, useSearchParams } from "next/navigation";
 import { useEffect, useRef, useState, type FormEvent } from "react";
 import type { CatalogResult } from "@/db/queries/catalog";
+import { CATALOG_DEPTH, catalogCountText } from "@/lib/listings/catalog-limits";
 import { Button } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import { ErrorState } from "@/components/ui/error-state";
@@ -155,7 +156,7 @@ export function CatalogBrowser({ initialQuery, initialResult, sellers }: Catalog
             Results
           </h2>
           <p role="status" aria-live="polite" aria-atomic="true" className="text-sm text-graphite-700" data-testid="catalog-count">
-            {countText(data.total, query.q)}
+            {countText(data.total, data.totalCapped, query.q)}
             {pages > 1 ? `, page ${data.page} of ${pages}` : ""}
             {updating ? <span className="ml-2 text-graphite-500">Updating…</span> : null}
           </p>
@@ -199,13 +200,20 @@ export function CatalogBrowser({ initialQuery, initialResult, sellers }: Catalog
           </ul>
         )}
 
+        {data.totalCapped ? (
+          <p className="text-sm text-graphite-700" data-testid="catalog-depth-note">
+            {query.q
+              ? `A search sorts the ${CATALOG_DEPTH.toLocaleString("en")} newest listings that match. Add words or filters to narrow it.`
+              : `Pages go as far as the first ${CATALOG_DEPTH.toLocaleString("en")} listings. Filters narrow the list.`}
+          </p>
+        ) : null}
         <CatalogPagination page={data.page} pages={pages} hrefFor={hrefFor} onPage={goToPage} />
       </div>
     </div>
   );
 }
 
-function countText(total: number, q: string | undefined): string {
-  const count = total === 0 ? "No listings" : total === 1 ? "1 listing" : `${total} listings`;
+function countText(total: number, capped: boolean, q: string | undefined): string {
+  const count = catalogCountText(total, capped);
   return q ? `${count} for “${q}”` : count;
 }

@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, desc, eq, gt, gte, inArray, lte, or, sql, type SQL, type SQLWrapper } from "drizzle-orm";
+import { and, asc, desc, eq, gt, gte, inArray, lte, sql, type SQL, type SQLWrapper } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { db, type Executor } from "@/db/client";
 import {
@@ -14,6 +14,7 @@ import {
   type ListingKind,
   type MagneticSubtype,
 } from "@/db/schema";
+import { CATALOG_DEPTH } from "@/lib/listings/catalog-limits";
 import { CATALOG_PAGE_SIZE, effectiveSort, type CatalogQuery } from "@/lib/validations/catalog";
 
 export type CatalogCard = {
@@ -31,7 +32,14 @@ export type CatalogCard = {
   coverAlt: string | null;
 };
 
-export type CatalogResult = { items: CatalogCard[]; total: number; page: number; pageSize: number };
+export type CatalogResult = {
+  items: CatalogCard[];
+  /** exact up to CATALOG_DEPTH; when `totalCapped`, there are more than this */
+  total: number;
+  totalCapped: boolean;
+  page: number;
+  pageSize: number;
+};
 
 export type CatalogSearch = CatalogQuery & { pageSize?: number };
 
@@ -63,27 +71,29 @@ function coverPhoto(executor: Executor) {
 // websearch syntax: a word or "phrase" right after a minus is excluded.
 const EXCLUDED = /(?:^|\s)-("[^"]*"|[^\s"]+)/g;
 
+/** How a search's words are matched: as words (full text), or as close spellings of the title's words. */
+type MatchMode = "words" | "close";
+
 /**
- * Full-text match, or a title whose words are close to the search (typos). The close match
- * compares only the wanted words and still honours the excluded ones, so "choke -toroidal"
- * does not bring the toroid back through the typo path.
+ * The words of the search in the full-text column, or (mode "close") a title whose words are
+ * close to the wanted words (typos). The close match still honours the excluded words, so
+ * "choke -toroidal" does not bring the toroid back through the typo path.
  */
-function textMatch(term: string): SQL {
+function textMatch(term: string, mode: MatchMode): SQL {
+  if (mode === "words") return sql`${searchVector} @@ ${tsQuery(term)}`;
   const excluded = [...term.matchAll(EXCLUDED)].map((m) => m[1] ?? "");
   const wanted = term.replace(EXCLUDED, " ").trim();
-  const fuzzy = wanted
-    ? and(
-        sql`${wanted} <<% ${listings.title}`,
-        excluded.length > 0 ? sql`not (${searchVector} @@ ${tsQuery(excluded.join(" or "))})` : undefined,
-      )
-    : undefined;
-  return or(sql`${searchVector} @@ ${tsQuery(term)}`, fuzzy) ?? sql`false`;
+  if (!wanted) return sql`false`;
+  return and(
+    sql`${wanted} <<% ${listings.title}`,
+    excluded.length > 0 ? sql`not (${searchVector} @@ ${tsQuery(excluded.join(" or "))})` : undefined,
+  ) as SQL;
 }
 
-function catalogWhere(search: CatalogSearch, term: string | undefined): SQL | undefined {
+function catalogWhere(search: CatalogSearch, text: TextSearch | undefined): SQL | undefined {
   return and(
     eq(listings.state, "live"),
-    term ? textMatch(term) : undefined,
+    text ? textMatch(text.term, text.mode) : undefined,
     search.kind ? eq(listings.kind, search.kind) : undefined,
     search.subtype ? eq(listings.magneticSubtype, search.subtype) : undefined,
     search.mains === "yes" ? sql`${listings.mainsConnected} is true` : undefined,
@@ -103,23 +113,52 @@ function relevance(term: string): SQL<number> {
   return sql<number>`(ts_rank_cd(${searchVector}, ${tsQuery(term)}) + strict_word_similarity(${term}, ${listings.title}))`;
 }
 
+const NEWEST = [sql`${listings.liveAt} desc nulls last`, asc(listings.id)];
+
 function catalogOrder(search: CatalogSearch, term: string | undefined): SQL[] {
   switch (effectiveSort({ q: term, sort: search.sort })) {
     case "relevance":
-      return [desc(relevance(term ?? "")), sql`${listings.liveAt} desc nulls last`, asc(listings.id)];
+      return [desc(relevance(term ?? "")), ...NEWEST];
     case "price-asc":
       return [asc(listings.priceMinor), asc(listings.id)];
     case "price-desc":
       return [desc(listings.priceMinor), asc(listings.id)];
     case "newest":
-      return [sql`${listings.liveAt} desc nulls last`, asc(listings.id)];
+      return NEWEST;
   }
 }
 
-async function searchWith(executor: Executor, search: CatalogSearch, term: string | undefined, page: number, pageSize: number) {
-  const where = catalogWhere(search, term);
+type TextSearch = { term: string; mode: MatchMode };
+
+/** Matching live listings up to `depth + 1`, so the caller knows whether there are more than `depth`. */
+async function countUpTo(executor: Executor, where: SQL | undefined, depth: number): Promise<number> {
+  const upTo = executor
+    .select({ one: sql`1`.as("one") })
+    .from(listings)
+    .leftJoin(sellerProfiles, eq(sellerProfiles.userId, listings.sellerId))
+    .where(where)
+    .limit(depth + 1)
+    .as("up_to");
+  const [row] = await executor.select({ n: sql<number>`count(*)::int` }).from(upTo);
+  return row?.n ?? 0;
+}
+
+async function searchWith(executor: Executor, search: CatalogSearch, text: TextSearch | undefined, page: number, pageSize: number, depth: number) {
+  const where = catalogWhere(search, text);
   const cover = coverPhoto(executor);
-  const items = await executor
+  // A text search sorts the newest `depth` matches, read in live_at order, so a broad word costs
+  // the same in a catalog of 10,000 as of 100,000; filters alone walk their indexes in full.
+  const considered = text
+    ? executor
+        .select({ id: listings.id })
+        .from(listings)
+        .leftJoin(sellerProfiles, eq(sellerProfiles.userId, listings.sellerId))
+        .where(where)
+        .orderBy(...NEWEST)
+        .limit(depth)
+        .as("considered")
+    : undefined;
+  const base = executor
     .select({
       id: listings.id,
       slug: listings.slug,
@@ -137,37 +176,39 @@ async function searchWith(executor: Executor, search: CatalogSearch, term: strin
     .from(listings)
     .leftJoin(sellerProfiles, eq(sellerProfiles.userId, listings.sellerId))
     .leftJoinLateral(cover, sql`true`)
-    .where(where)
-    .orderBy(...catalogOrder(search, term))
+    .$dynamic();
+  const items = await (considered ? base.innerJoin(considered, eq(considered.id, listings.id)) : base.where(where))
+    .orderBy(...catalogOrder(search, text?.term))
     .limit(pageSize)
     .offset((page - 1) * pageSize);
-  const [count] = await executor
-    .select({ n: sql<number>`count(*)::int` })
-    .from(listings)
-    .leftJoin(sellerProfiles, eq(sellerProfiles.userId, listings.sellerId))
-    .where(where);
-  return { items: items satisfies CatalogCard[], total: count?.n ?? 0 };
+  const found = await countUpTo(executor, where, depth);
+  return { items: items satisfies CatalogCard[], total: Math.min(found, depth), totalCapped: found > depth };
 }
 
-/** Live listings matching the catalog's search, filters and sort, one page of them and the total. */
-export async function searchListings(search: CatalogSearch): Promise<CatalogResult> {
+/**
+ * Live listings matching the catalog's search, filters and sort: one page of them and the total
+ * (exact up to `depth`, then capped with `totalCapped`). The search's words are matched as words
+ * first; only when that finds nothing are close spellings of the title's words tried (typos).
+ */
+export async function searchListings(search: CatalogSearch, { depth = CATALOG_DEPTH }: { depth?: number } = {}): Promise<CatalogResult> {
   const pageSize = Math.min(100, Math.max(1, Math.trunc(search.pageSize ?? CATALOG_PAGE_SIZE)));
   const page = Math.max(1, Math.trunc(search.page ?? 1));
   const term = search.q?.trim() || undefined;
-  if (!term) return { ...(await searchWith(db, search, term, page, pageSize)), page, pageSize };
-  // The trigram operator takes its threshold from a setting; SET LOCAL keeps it to this search
-  // and lets the title's trigram index answer `<<%` at our threshold.
+  if (!term) return { ...(await searchWith(db, search, undefined, page, pageSize, depth)), page, pageSize };
   const found = await db.transaction(
     async (tx) => {
+      const asWords = await searchWith(tx, search, { term, mode: "words" }, page, pageSize, depth);
+      if (asWords.total > 0) return asWords;
+      // The trigram operator takes its threshold from a setting; SET LOCAL keeps it to this search
+      // and lets the title's trigram index answer `<<%` at our threshold.
       await tx.execute(sql`select set_config('pg_trgm.strict_word_similarity_threshold', ${String(TYPO_THRESHOLD)}, true)`);
-      return searchWith(tx, search, term, page, pageSize);
+      return searchWith(tx, search, { term, mode: "close" }, page, pageSize, depth);
     },
     { accessMode: "read only" },
   );
   return { ...found, page, pageSize };
 }
 
-/** Shops with at least one live listing, for the catalog's seller filter. */
 export async function listCatalogSellers(): Promise<{ slug: string; shopName: string }[]> {
   return db
     .select({ slug: sellerProfiles.slug, shopName: sellerProfiles.shopName })
@@ -209,21 +250,30 @@ export const KITS_PER_MAGNETIC = 12;
 export async function kitsFittedByMagnetic(magneticId: string, limit = KITS_PER_MAGNETIC + 1): Promise<FittedKit[]> {
   const magnetic = alias(listings, "magnetic");
   const kit = alias(listings, "kit");
+  // Live kits walked in title order (listings_live_kits_title_idx) until `limit` have a requirement
+  // the part meets; the label is the first such requirement's.
+  const fitting = db
+    .select({ label: listingRequirements.label })
+    .from(listingRequirements)
+    .innerJoin(magnetic, eq(magnetic.id, magneticId))
+    .where(and(eq(listingRequirements.listingId, kit.id), eq(magnetic.kind, "magnetic"), fitCondition(magnetic, listingRequirements)))
+    .orderBy(asc(listingRequirements.label))
+    .limit(1)
+    .as("fitting");
   return db
-    .selectDistinctOn([kit.title, kit.id], {
+    .select({
       id: kit.id,
       slug: kit.slug,
       title: kit.title,
       priceMinor: kit.priceMinor,
       currency: kit.currency,
       stock: kit.stock,
-      requirementLabel: listingRequirements.label,
+      requirementLabel: fitting.label,
     })
-    .from(magnetic)
-    .innerJoin(listingRequirements, fitCondition(magnetic, listingRequirements))
-    .innerJoin(kit, eq(kit.id, listingRequirements.listingId))
-    .where(and(eq(magnetic.id, magneticId), eq(magnetic.kind, "magnetic"), eq(kit.state, "live"), eq(kit.kind, "kit")))
-    .orderBy(asc(kit.title), asc(kit.id), asc(listingRequirements.label))
+    .from(kit)
+    .crossJoinLateral(fitting)
+    .where(and(eq(kit.state, "live"), eq(kit.kind, "kit")))
+    .orderBy(asc(kit.title), asc(kit.id))
     .limit(limit);
 }
 
@@ -266,10 +316,10 @@ export async function magneticsFittingKit(kitId: string): Promise<RequirementFit
     .where(eq(listingRequirements.listingId, kitId))
     .orderBy(asc(listingRequirements.label), asc(listingRequirements.id));
   if (requirements.length === 0) return [];
-  const ranked = db
+  // Per requirement, the live magnetics of its subtype walked cheapest first (listings_live_facets_idx)
+  // until twelve fit, instead of ranking every fitting magnetic.
+  const cheapest = db
     .select({
-      requirementId: sql<string>`${listingRequirements.id}`.as("requirement_id"),
-      rank: sql<number>`row_number() over (partition by ${listingRequirements.id} order by ${magnetic.priceMinor}, ${magnetic.id})`.as("rank"),
       id: magnetic.id,
       slug: magnetic.slug,
       title: magnetic.title,
@@ -280,19 +330,32 @@ export async function magneticsFittingKit(kitId: string): Promise<RequirementFit
       ratedCurrentA: magnetic.ratedCurrentA,
       shopName: sellerProfiles.shopName,
     })
-    .from(listingRequirements)
-    .innerJoin(magnetic, and(eq(magnetic.state, "live"), eq(magnetic.kind, "magnetic"), fitCondition(magnetic, listingRequirements)))
+    .from(magnetic)
     .leftJoin(sellerProfiles, eq(sellerProfiles.userId, magnetic.sellerId))
-    .where(inArray(listingRequirements.id, requirements.map((r) => r.requirementId)))
-    .as("ranked");
+    .where(and(eq(magnetic.state, "live"), eq(magnetic.kind, "magnetic"), fitCondition(magnetic, listingRequirements)))
+    .orderBy(asc(magnetic.priceMinor), asc(magnetic.id))
+    .limit(MAGNETICS_PER_REQUIREMENT)
+    .as("cheapest");
   const rows = await db
-    .select()
-    .from(ranked)
-    .where(lte(ranked.rank, MAGNETICS_PER_REQUIREMENT))
-    .orderBy(asc(ranked.priceMinor), asc(ranked.id));
+    .select({
+      requirementId: listingRequirements.id,
+      id: cheapest.id,
+      slug: cheapest.slug,
+      title: cheapest.title,
+      priceMinor: cheapest.priceMinor,
+      currency: cheapest.currency,
+      stock: cheapest.stock,
+      inductanceH: cheapest.inductanceH,
+      ratedCurrentA: cheapest.ratedCurrentA,
+      shopName: cheapest.shopName,
+    })
+    .from(listingRequirements)
+    .crossJoinLateral(cheapest)
+    .where(eq(listingRequirements.listingId, kitId))
+    .orderBy(asc(cheapest.priceMinor), asc(cheapest.id));
   return requirements.map((r) => ({
     ...r,
-    magnetics: rows.filter((m) => m.requirementId === r.requirementId).map(({ requirementId: _r, rank: _k, ...m }) => m),
+    magnetics: rows.filter((m) => m.requirementId === r.requirementId).map(({ requirementId: _r, ...m }) => m),
   }));
 }
 

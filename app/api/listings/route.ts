@@ -8,7 +8,7 @@ export const dynamic = "force-dynamic";
 // bursts, and a stale result is at worst a listing that went live a moment ago.
 const CACHE_CONTROL = "public, max-age=5, s-maxage=10, stale-while-revalidate=30";
 
-/** GET /api/listings?q=&kind=&subtype=&mains=&minPrice=&maxPrice=&inStock=&seller=&sort=&page= → { items, total, page, pageSize } */
+/** GET /api/listings?q=&kind=&subtype=&mains=&minPrice=&maxPrice=&inStock=&seller=&sort=&page= → { items, total, totalCapped, page, pageSize } */
 export async function GET(request: Request): Promise<Response> {
   const parsed = parseCatalogQuery(new URL(request.url).searchParams);
   if (!parsed.ok) return invalidInput("Some search parameters are not valid.", parsed.fieldErrors);

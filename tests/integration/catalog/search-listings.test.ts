@@ -114,7 +114,7 @@ describe("searchListings: relevance", () => {
   });
 
   it("a search that matches nothing returns no items and a total of 0", async () => {
-    expect(await catalog.searchListings({ q: "xylophone" })).toEqual({ items: [], total: 0, page: 1, pageSize: 24 });
+    expect(await catalog.searchListings({ q: "xylophone" })).toEqual({ items: [], total: 0, totalCapped: false, page: 1, pageSize: 24 });
   });
 });
 
@@ -188,6 +188,43 @@ describe("searchListings: sorting and paging", () => {
     const result = await catalog.searchListings({ kind: "board", pageSize: 4 });
     expect(result.items).toHaveLength(4);
     expect(result.total).toBe(kits);
+  });
+});
+
+describe("searchListings: depth (how far a view looks and counts)", () => {
+  // Common practice in large catalogs: a text search sorts a bounded set of matches and the
+  // count stops past it ("more than N"), so a broad word does not read the whole catalog.
+  // The depth is a parameter; these cases use 3 on the small fixture set.
+  const byAge = [...LIVE].sort((a, b) => (a.liveDaysAgo ?? 0) - (b.liveDaysAgo ?? 0));
+
+  it("without a search the total stops at the depth and says so; the pages still follow the sort", async () => {
+    const result = await catalog.searchListings({ sort: "price-asc", pageSize: 100 }, { depth: 3 });
+    expect(result).toMatchObject({ total: 3, totalCapped: true });
+    expect(result.items.map((i) => i.priceMinor)).toEqual(LIVE.map((f) => f.priceMinor).sort((a, b) => a - b));
+  });
+
+  it("a view with no more matches than the depth gives the exact total, not capped", async () => {
+    const kits = LIVE.filter((f) => f.kind === "kit").length;
+    expect(kits).toBeLessThanOrEqual(3);
+    expect(await catalog.searchListings({ kind: "kit" }, { depth: 3 })).toMatchObject({ total: kits, totalCapped: false });
+    expect(await catalog.searchListings({ kind: "kit" }, { depth: kits })).toMatchObject({ total: kits, totalCapped: false });
+  });
+
+  it("a text search sorts only the newest matches up to the depth", async () => {
+    // "kit" matches every kit; with depth 2 only the two that went live last are considered.
+    const kits = byAge.filter((f) => f.kind === "kit");
+    expect(kits.length).toBeGreaterThan(2);
+    const result = await catalog.searchListings({ q: "kit", sort: "price-asc" }, { depth: 2 });
+    expect(result).toMatchObject({ total: 2, totalCapped: true });
+    const newestTwo = kits.slice(0, 2).sort((a, b) => a.priceMinor - b.priceMinor);
+    expect(keys(result.items)).toEqual(keysOf(newestTwo));
+  });
+
+  it("close spellings are tried only when the words themselves find nothing", async () => {
+    // A word that is in a title finds that listing by full text; a misspelt one finds nothing
+    // by full text and falls back to pg_trgm's strict_word_similarity on the titles.
+    expect(keys((await everything({ q: "chopper" })).items)).toEqual(["chopper-board"]);
+    expect(sorted(keys((await everything({ q: "choek" })).items))).toEqual(["choke-22", "choke-40"]);
   });
 });
 
