@@ -143,46 +143,76 @@ async function countUpTo(executor: Executor, where: SQL | undefined, depth: numb
   return row?.n ?? 0;
 }
 
-async function searchWith(executor: Executor, search: CatalogSearch, text: TextSearch | undefined, page: number, pageSize: number, depth: number) {
-  const where = catalogWhere(search, text);
+const CARD_COLUMNS = (cover: ReturnType<typeof coverPhoto>) => ({
+  id: listings.id,
+  slug: listings.slug,
+  title: listings.title,
+  kind: listings.kind,
+  magneticSubtype: listings.magneticSubtype,
+  priceMinor: listings.priceMinor,
+  currency: listings.currency,
+  stock: listings.stock,
+  mainsConnected: listings.mainsConnected,
+  shopName: sellerProfiles.shopName,
+  coverUrl: cover.url,
+  coverAlt: cover.alt,
+});
+
+/** Filters alone: the page through the filters' indexes, and a count that stops past `depth`. */
+async function filterWith(executor: Executor, search: CatalogSearch, page: number, pageSize: number, depth: number) {
+  const where = catalogWhere(search, undefined);
   const cover = coverPhoto(executor);
-  // A text search sorts the newest `depth` matches, read in live_at order, so a broad word costs
-  // the same in a catalog of 10,000 as of 100,000; filters alone walk their indexes in full.
-  const considered = text
-    ? executor
-        .select({ id: listings.id })
-        .from(listings)
-        .leftJoin(sellerProfiles, eq(sellerProfiles.userId, listings.sellerId))
-        .where(where)
-        .orderBy(...NEWEST)
-        .limit(depth)
-        .as("considered")
-    : undefined;
-  const base = executor
-    .select({
-      id: listings.id,
-      slug: listings.slug,
-      title: listings.title,
-      kind: listings.kind,
-      magneticSubtype: listings.magneticSubtype,
-      priceMinor: listings.priceMinor,
-      currency: listings.currency,
-      stock: listings.stock,
-      mainsConnected: listings.mainsConnected,
-      shopName: sellerProfiles.shopName,
-      coverUrl: cover.url,
-      coverAlt: cover.alt,
-    })
+  const items = await executor
+    .select(CARD_COLUMNS(cover))
     .from(listings)
     .leftJoin(sellerProfiles, eq(sellerProfiles.userId, listings.sellerId))
     .leftJoinLateral(cover, sql`true`)
-    .$dynamic();
-  const items = await (considered ? base.innerJoin(considered, eq(considered.id, listings.id)) : base.where(where))
-    .orderBy(...catalogOrder(search, text?.term))
+    .where(where)
+    .orderBy(...catalogOrder(search, undefined))
     .limit(pageSize)
     .offset((page - 1) * pageSize);
   const found = await countUpTo(executor, where, depth);
   return { items: items satisfies CatalogCard[], total: Math.min(found, depth), totalCapped: found > depth };
+}
+
+/**
+ * A text search sorts the newest `depth` matches, read in live_at order, so a broad word costs
+ * the same in a catalog of 10,000 as of 100,000. The same read counts them (one past `depth`
+ * tells "more than"), so the matches are read once.
+ */
+async function textSearchWith(executor: Executor, search: CatalogSearch, text: TextSearch, page: number, pageSize: number, depth: number) {
+  const where = catalogWhere(search, text);
+  const cover = coverPhoto(executor);
+  const newest = executor
+    .select({ id: listings.id, liveAt: listings.liveAt })
+    .from(listings)
+    .leftJoin(sellerProfiles, eq(sellerProfiles.userId, listings.sellerId))
+    .where(where)
+    .orderBy(...NEWEST)
+    .limit(depth + 1)
+    .as("newest");
+  const considered = executor
+    .select({
+      id: newest.id,
+      found: sql<number>`(count(*) over ())::int`.as("found"),
+      position: sql<number>`row_number() over (order by ${newest.liveAt} desc nulls last, ${newest.id})`.as("position"),
+    })
+    .from(newest)
+    .as("considered");
+  const rows = await executor
+    .select({ ...CARD_COLUMNS(cover), found: considered.found })
+    .from(listings)
+    .innerJoin(considered, eq(considered.id, listings.id))
+    .leftJoin(sellerProfiles, eq(sellerProfiles.userId, listings.sellerId))
+    .leftJoinLateral(cover, sql`true`)
+    .where(lte(considered.position, depth))
+    .orderBy(...catalogOrder(search, text.term))
+    .limit(pageSize)
+    .offset((page - 1) * pageSize);
+  // A page past the last has no row to carry the count.
+  const found = rows[0]?.found ?? (page > 1 ? await countUpTo(executor, where, depth) : 0);
+  const items: CatalogCard[] = rows.map(({ found: _found, ...card }) => card);
+  return { items, total: Math.min(found, depth), totalCapped: found > depth };
 }
 
 /**
@@ -194,15 +224,15 @@ export async function searchListings(search: CatalogSearch, { depth = CATALOG_DE
   const pageSize = Math.min(100, Math.max(1, Math.trunc(search.pageSize ?? CATALOG_PAGE_SIZE)));
   const page = Math.max(1, Math.trunc(search.page ?? 1));
   const term = search.q?.trim() || undefined;
-  if (!term) return { ...(await searchWith(db, search, undefined, page, pageSize, depth)), page, pageSize };
+  if (!term) return { ...(await filterWith(db, search, page, pageSize, depth)), page, pageSize };
   const found = await db.transaction(
     async (tx) => {
-      const asWords = await searchWith(tx, search, { term, mode: "words" }, page, pageSize, depth);
+      const asWords = await textSearchWith(tx, search, { term, mode: "words" }, page, pageSize, depth);
       if (asWords.total > 0) return asWords;
       // The trigram operator takes its threshold from a setting; SET LOCAL keeps it to this search
       // and lets the title's trigram index answer `<<%` at our threshold.
       await tx.execute(sql`select set_config('pg_trgm.strict_word_similarity_threshold', ${String(TYPO_THRESHOLD)}, true)`);
-      return searchWith(tx, search, { term, mode: "close" }, page, pageSize, depth);
+      return textSearchWith(tx, search, { term, mode: "close" }, page, pageSize, depth);
     },
     { accessMode: "read only" },
   );

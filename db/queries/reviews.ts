@@ -25,6 +25,7 @@ import {
 import { hasRole, type SessionUser } from "@/lib/auth/access";
 import { env } from "@/lib/env";
 import { formatMoney } from "@/lib/format/money";
+import type { MailTemplate } from "@/emails/registry";
 import { dispatchMail, enqueueMail } from "@/lib/mail/outbox";
 import { formatWhen } from "@/lib/reviews/format";
 import { SETTLE_LABELS, stageList } from "@/lib/reviews/labels";
@@ -529,25 +530,26 @@ async function partiesOf(tx: Tx, row: ReviewSession) {
   return { builder, reviewer, logTitle };
 }
 
-async function releasedMail(tx: Tx, row: ReviewSession, why: "declined" | "expired", note: string): Promise<string[]> {
+type SessionMailProps = { builderName: string; reviewerName: string; logTitle: string; sessionUrl: string };
+
+/**
+ * Mail the builder about their session with the names, log title and link every such mail
+ * carries, plus the template's own props; nothing when the builder has no address.
+ */
+async function mailBuilderAbout<P extends SessionMailProps>(
+  tx: Tx,
+  row: ReviewSession,
+  template: { name: string; template: MailTemplate<P> },
+  extra: Omit<P, keyof SessionMailProps>,
+): Promise<string[]> {
   const { builder, reviewer, logTitle } = await partiesOf(tx, row);
   if (!builder.email) return [];
-  return [
-    await enqueueMail(tx, {
-      template: reviewReleasedMail,
-      to: builder.email,
-      props: {
-        builderName: nameOf(builder),
-        reviewerName: nameOf(reviewer),
-        logTitle,
-        amount: formatMoney(row.priceMinor, row.currency),
-        why,
-        note,
-        sessionUrl: appUrl(`/reviews/${row.id}`),
-        reviewersUrl: appUrl("/reviewers"),
-      },
-    }),
-  ];
+  const common: SessionMailProps = { builderName: nameOf(builder), reviewerName: nameOf(reviewer), logTitle, sessionUrl: appUrl(`/reviews/${row.id}`) };
+  return [await enqueueMail(tx, { template, to: builder.email, props: { ...common, ...extra } as P })];
+}
+
+function releasedMail(tx: Tx, row: ReviewSession, why: "declined" | "expired", note: string): Promise<string[]> {
+  return mailBuilderAbout(tx, row, reviewReleasedMail, { amount: formatMoney(row.priceMinor, row.currency), why, note, reviewersUrl: appUrl("/reviewers") });
 }
 
 export async function acceptReview({ actor, sessionId, now = new Date() }: { actor: SessionUser; sessionId: string; now?: Date }): Promise<void> {
@@ -556,15 +558,7 @@ export async function acceptReview({ actor, sessionId, now = new Date() }: { act
     const plan = await planOrRefuse(row, "accept", actor, now);
     await moveState(tx, row, plan.from, { state: plan.to, acceptedAt: now });
     await audit(tx, row, actor.id, "review.accepted", { from: plan.from, to: plan.to });
-    const { builder, reviewer, logTitle } = await partiesOf(tx, row);
-    if (!builder.email) return [];
-    return [
-      await enqueueMail(tx, {
-        template: reviewAcceptedMail,
-        to: builder.email,
-        props: { builderName: nameOf(builder), reviewerName: nameOf(reviewer), logTitle, deliverBy: formatWhen(deliverBy(row)), sessionUrl: appUrl(`/reviews/${row.id}`) },
-      }),
-    ];
+    return mailBuilderAbout(tx, row, reviewAcceptedMail, { deliverBy: formatWhen(deliverBy(row)) });
   });
   await dispatchMail(mailIds);
 }
@@ -723,25 +717,13 @@ export async function deliverReport({ actor, sessionId, report, now = new Date()
     await tx.insert(reviewVerdicts).values(report.verdicts.map((v) => ({ sessionId: row.id, checkpointId: v.checkpointId, verdict: v.verdict, comment: v.comment })));
     const tally = (verdict: CheckpointVerdict) => report.verdicts.filter((v) => v.verdict === verdict).length;
     await audit(tx, row, actor.id, "review.delivered", { from: plan.from, to: plan.to, fine: tally("fine"), needsAttention: tally("needs_attention"), stop: tally("stop") });
-    const { builder, reviewer, logTitle } = await partiesOf(tx, row);
-    if (!builder.email) return [];
-    return [
-      await enqueueMail(tx, {
-        template: reviewDeliveredMail,
-        to: builder.email,
-        props: {
-          builderName: nameOf(builder),
-          reviewerName: nameOf(reviewer),
-          logTitle,
-          amount: formatMoney(row.priceMinor, row.currency),
-          stops: tally("stop"),
-          attention: tally("needs_attention"),
-          fine: tally("fine"),
-          disputeBy: formatWhen(disputeBy),
-          sessionUrl: appUrl(`/reviews/${row.id}`),
-        },
-      }),
-    ];
+    return mailBuilderAbout(tx, row, reviewDeliveredMail, {
+      amount: formatMoney(row.priceMinor, row.currency),
+      stops: tally("stop"),
+      attention: tally("needs_attention"),
+      fine: tally("fine"),
+      disputeBy: formatWhen(disputeBy),
+    });
   });
   await dispatchMail(mailIds);
   return collectReviewPayment(sessionId);

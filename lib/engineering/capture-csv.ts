@@ -173,11 +173,11 @@ function findSideBySideLayout(head: HeadLine[]): Layout | null {
   return null;
 }
 
-type Metadata = { intervalS: number | null; startS: number; rateLine: number | null; keyValueLines: Set<number> };
+type Metadata = { intervalS: number | null; startS: number; keyValueLines: Set<number> };
 
 /** `Sample interval,1e-6`, `Sample rate: 1 MSa/s`, and key rows over value rows (`X,CH1,Start,Increment`). */
 function readMetadata(lines: HeadLine[], delimiter: Delimiter, decimalComma: boolean): Metadata {
-  const meta: Metadata = { intervalS: null, startS: 0, rateLine: null, keyValueLines: new Set() };
+  const meta: Metadata = { intervalS: null, startS: 0, keyValueLines: new Set() };
   const pairs: { key: string; value: string; line: number; inline: boolean }[] = [];
   let previous: string[] | null = null;
   for (const line of lines) {
@@ -211,10 +211,8 @@ function readMetadata(lines: HeadLine[], delimiter: Delimiter, decimalComma: boo
       else throw captureError(`Line ${line}: the sample interval "${value.trim()}" is not a positive time.`);
     } else if (RATE_KEY.test(name) && meta.intervalS === null) {
       const rate = rateValue(value, decimalComma);
-      if (rate !== null && rate > 0) {
-        meta.intervalS = 1 / rate;
-        meta.rateLine = line;
-      } else throw captureError(`Line ${line}: the sample rate "${value.trim()}" is not a positive rate.`);
+      if (rate !== null && rate > 0) meta.intervalS = 1 / rate;
+      else throw captureError(`Line ${line}: the sample rate "${value.trim()}" is not a positive rate.`);
     } else if (START_KEY.test(name)) {
       const seconds = timeValue(value, decimalComma);
       if (seconds !== null) meta.startS = seconds;

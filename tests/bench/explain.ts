@@ -117,13 +117,15 @@ async function explainGroup(pool: pg.Pool, label: string, statements: CapturedSt
         .filter((n) => n["Node Type"] === "Seq Scan" && scanned(n) > FULL_SCAN_SHARE * (large.get(n["Relation Name"] ?? "") ?? Infinity))
         .map((n) => `Seq Scan on ${n["Relation Name"]} (${n["Actual Rows"]} rows kept, ${n["Rows Removed by Filter"] ?? 0} removed)`);
       const touchesLarge = nodes.some((n) => large.has(n["Relation Name"] ?? ""));
+      const boundedOnly = nodes.some((n) => n["Node Type"] === "Limit") && nodes.every((n) => n["Node Type"] !== "Seq Scan" || scanned(n) <= FULL_SCAN_SHARE * (large.get(n["Relation Name"] ?? "") ?? Infinity));
       out.push({
         statement: s.text.replace(/\s+/g, " ").slice(0, 240),
         executionMs: round(result["Execution Time"], 2),
         planningMs: round(result["Planning Time"], 2),
         indexes,
         seqScans,
-        usesIndex: seqScans.length === 0 && (indexes.length > 0 || !touchesLarge),
+        // Index use, or a sequential scan that a LIMIT stops within FULL_SCAN_SHARE of the table.
+        usesIndex: seqScans.length === 0 && (indexes.length > 0 || !touchesLarge || boundedOnly),
         plan: renderPlan(result.Plan),
       });
     }
