@@ -1,43 +1,30 @@
 import Link from "next/link";
-import { getSessionUser } from "@/lib/auth/guard";
-import { signOutAction } from "@/app/(account)/sign-in/actions";
-import { navLinksFor } from "./nav-links";
+import { AccountControls, AreaLinks, HeaderLink } from "./header-session";
+import { PUBLIC_LINKS } from "./nav-links";
 
-export async function SiteHeader() {
-  const user = await getSessionUser();
-  const links = navLinksFor(user);
+/**
+ * The same for every visitor, so the layout never reads the session and pages can be cached; the
+ * per-person links and controls fill in on the client (header-session.tsx). The nav is one line
+ * that scrolls sideways rather than wrapping, so links that arrive after load shift nothing.
+ */
+export function SiteHeader() {
   return (
     <header className="bg-graphite-900 text-paper-sunken">
       <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-3">
-        <Link href="/" className="flex items-center gap-2 text-lg font-bold tracking-wide text-copper-300 no-underline hover:text-copper-200">
+        <Link href="/" className="flex h-8 items-center gap-2 text-lg font-bold tracking-wide text-copper-300 no-underline hover:text-copper-200">
           <LogoMark />
           Fluxyard
         </Link>
-        <nav aria-label="Main" className="flex flex-1 flex-wrap gap-x-4 gap-y-1 text-sm">
-          {links.map((l) => (
-            <Link key={l.href} href={l.href} className="text-graphite-100 no-underline hover:text-white hover:underline">
-              {l.label}
-            </Link>
+        <nav
+          aria-label="Main"
+          className="order-last flex h-7 w-full items-center gap-x-4 overflow-x-auto whitespace-nowrap text-sm [scrollbar-width:none] md:order-none md:w-auto md:min-w-0 md:flex-1"
+        >
+          {PUBLIC_LINKS.map((l) => (
+            <HeaderLink key={l.href} link={l} />
           ))}
+          <AreaLinks />
         </nav>
-        <div className="flex items-center gap-3 text-sm">
-          {user ? (
-            <>
-              <Link href="/account" className="text-graphite-100 no-underline hover:text-white" data-testid="signed-in-as">
-                {user.name ?? user.email}
-              </Link>
-              <form action={signOutAction}>
-                <button type="submit" className="rounded border border-graphite-600 px-3 py-1 text-graphite-100 hover:border-graphite-400 hover:text-white">
-                  Sign out
-                </button>
-              </form>
-            </>
-          ) : (
-            <Link href="/sign-in" className="rounded bg-copper-600 px-3 py-1.5 font-medium text-white no-underline hover:bg-copper-700">
-              Sign in
-            </Link>
-          )}
-        </div>
+        <AccountControls className="ml-auto md:ml-0" />
       </div>
     </header>
   );

@@ -5,6 +5,7 @@ import { db, type Tx } from "@/db/client";
 import { paymentEvents } from "@/db/schema";
 import { completeCheckoutPayment, releaseCheckout } from "@/db/queries/checkout";
 import { env } from "@/lib/env";
+import { revalidateCheckoutListingPages } from "@/lib/listings/listing-pages";
 import { dispatchMail } from "@/lib/mail/outbox";
 import { payments } from "./client";
 import { refundLatePayments, sendSellerShares } from "./checkout";
@@ -29,6 +30,8 @@ type Effect = {
   mailIds?: string[];
   /** after commit: send the sellers' shares, or refund a late payment */
   followUp?: { kind: "transfers" | "refund"; checkoutId: string };
+  /** after commit: the checkout whose stock moved, for its listing pages */
+  stockMoved?: string;
 };
 
 function checkoutIdOf(object: { metadata?: Stripe.Metadata | null; client_reference_id?: string | null }): string | null {
@@ -54,7 +57,7 @@ async function sessionPaid(tx: Tx, session: Stripe.Checkout.Session, event: Stri
   });
   switch (result.kind) {
     case "paid":
-      return { outcome: result.reReserved ? "paid-after-release" : "paid", mailIds: result.mailIds, followUp: { kind: "transfers", checkoutId } };
+      return { outcome: result.reReserved ? "paid-after-release" : "paid", mailIds: result.mailIds, followUp: { kind: "transfers", checkoutId }, ...(result.reReserved ? { stockMoved: checkoutId } : {}) };
     case "refund-needed":
       return { outcome: "paid-too-late-refunding", mailIds: result.mailIds, followUp: { kind: "refund", checkoutId } };
     default:
@@ -65,7 +68,7 @@ async function sessionPaid(tx: Tx, session: Stripe.Checkout.Session, event: Stri
 async function released(tx: Tx, checkoutId: string | null, to: "expired" | "failed"): Promise<Effect> {
   if (!checkoutId) return { outcome: "not-ours" };
   const result = await releaseCheckout(tx, checkoutId, to);
-  return { outcome: result.released ? to : `unchanged-${result.status}` };
+  return { outcome: result.released ? to : `unchanged-${result.status}`, ...(result.released ? { stockMoved: checkoutId } : {}) };
 }
 
 async function applyEvent(tx: Tx, event: Stripe.Event): Promise<Effect> {
@@ -118,6 +121,7 @@ export async function processEvent(event: Stripe.Event): Promise<WebhookResult> 
 
   // After commit. Failures here are logged and retried by the sweep; the event stays processed.
   if (result.mailIds?.length) await dispatchMail(result.mailIds);
+  if (result.stockMoved) await revalidateCheckoutListingPages(result.stockMoved);
   try {
     if (result.followUp?.kind === "transfers") await sendSellerShares({ checkoutId: result.followUp.checkoutId });
     if (result.followUp?.kind === "refund") await refundLatePayments({ checkoutId: result.followUp.checkoutId });

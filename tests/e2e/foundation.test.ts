@@ -104,6 +104,8 @@ describe("foundation journeys in Chromium", () => {
 
       await newcomer.page.goto("/sell");
       await newcomer.page.getByTestId("seller-desk").waitFor();
+      // The header's area links arrive after load (components/site/header-session.tsx).
+      await newcomer.page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Seller desk" }).waitFor();
       expect(await newcomer.page.getByRole("link", { name: "Seller desk" }).count()).toBe(1);
     } finally {
       await newcomer.close();

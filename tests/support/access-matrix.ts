@@ -284,6 +284,7 @@ export const ROUTES: RouteEntry[] = [
   { kind: "route", file: "app/api/checkout/status/route.ts", method: "GET", path: "/api/checkout/status?session={checkoutSession}", expect: row(401, 200, 404, 404, 404, 404, 404) },
   // public reads
   { kind: "route", file: "app/api/health/route.ts", method: "GET", path: "/api/health", expect: all(200) },
+  { kind: "route", file: "app/api/session/route.ts", method: "GET", path: "/api/session", expect: all(200), note: "who the site header names; null for a visitor" },
   { kind: "route", file: "app/api/listings/route.ts", method: "GET", path: "/api/listings", expect: all(200) },
   // moderation (on an id of nothing, so a moderator passes the guard and nothing changes)
   { kind: "route", file: "app/api/moderation/applications/[id]/approve/route.ts", method: "POST", path: "/api/moderation/applications/{missing}/approve", expect: moderatorsOnly(404) },

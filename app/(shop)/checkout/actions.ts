@@ -2,6 +2,7 @@
 
 import { redirect } from "next/navigation";
 import { AccessDeniedError, requireUser } from "@/lib/auth/guard";
+import { revalidateCheckoutListingPages } from "@/lib/listings/listing-pages";
 import { startCheckout } from "@/lib/payments/checkout";
 import { checkoutFormInput, startCheckoutSchema } from "@/lib/validations/checkout";
 
@@ -21,6 +22,8 @@ export async function startCheckoutAction(_previous: CheckoutFormResult, formDat
 
   const result = await startCheckout({ id: user.id, email: user.email }, parsed.data);
   if (!result.ok) return { ok: false, message: result.message, code: result.code, fieldErrors: result.fieldErrors };
+  // The stock is reserved now: the listing pages show what is left.
+  await revalidateCheckoutListingPages(result.checkoutId);
   // The provider's hosted page; outside any try so Next can carry out the redirect.
   redirect(result.url);
 }

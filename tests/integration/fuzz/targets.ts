@@ -156,6 +156,7 @@ export const OTHER_ROUTES: readonly OtherRoute[] = [
   { file: "cart/route.ts", methods: ["GET"], why: "no input" },
   { file: "admin/policy/route.ts", methods: ["GET"], why: "no input" },
   { file: "health/route.ts", methods: ["GET"], why: "no input" },
+  { file: "session/route.ts", methods: ["GET"], why: "no input; reads only the session cookie" },
   { file: "moderation/queue/route.ts", methods: ["GET"], why: "no input" },
   { file: "posts/queue/route.ts", methods: ["GET"], why: "no input" },
   { file: "payouts/status/route.ts", methods: ["GET"], why: "no input; reads the payment provider" },

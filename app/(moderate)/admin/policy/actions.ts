@@ -3,6 +3,7 @@
 import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
 import { AccessDeniedError, requireUser } from "@/lib/auth/guard";
+import { revalidateAllListingPages } from "@/lib/listings/listing-pages";
 import { publishPolicyRevision } from "@/lib/moderation/publish-policy";
 import type { FormResult } from "@/lib/validations/auth";
 import { policyFormValues } from "@/lib/validations/moderation";
@@ -23,5 +24,7 @@ export async function publishPolicyAction(_previous: FormResult | null, formData
   }
   revalidatePath("/admin/policy");
   revalidatePath("/moderate");
+  // Every listing page shows its safety sheet checked against the current revision.
+  revalidateAllListingPages();
   redirect(`/admin/policy?published=${outcome.revision}`);
 }

@@ -4,6 +4,7 @@ import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
 import { createListingDraft, ListingError, retireListing, submitListing, updateListing } from "@/db/queries/listings";
 import { AccessDeniedError, requireUser } from "@/lib/auth/guard";
+import { revalidateListingPages } from "@/lib/listings/listing-pages";
 import type { SessionUser } from "@/lib/auth/access";
 import { fieldErrorsFromZod } from "@/lib/http/json";
 import { enforceRateLimit, RateLimitedError } from "@/lib/rate-limit";
@@ -64,6 +65,7 @@ export async function saveListing(listingId: string | null, raw: unknown, intent
   }
   revalidatePath("/sell");
   revalidatePath(`/sell/listings/${id}`);
+  if (listingId !== null) await revalidateListingPages([id]);
 
   if (intent === "submit") {
     const complete = listingSubmitSchema.safeParse(raw);
@@ -84,6 +86,7 @@ export async function saveListing(listingId: string | null, raw: unknown, intent
       return refused;
     }
     revalidatePath("/sell");
+    await revalidateListingPages([id]);
     redirect(`/sell?submitted=${id}`);
   }
   if (listingId === null) redirect(`/sell/listings/${id}?notice=created`);
@@ -98,5 +101,6 @@ export async function retireListingAction(listingId: string): Promise<SaveListin
     return failure(error);
   }
   revalidatePath("/sell");
+  await revalidateListingPages([listingId]);
   redirect(`/sell?retired=${listingId}`);
 }

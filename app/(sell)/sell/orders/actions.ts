@@ -3,6 +3,7 @@
 import { revalidatePath } from "next/cache";
 import { acceptReturn, cancelOrder, declineReturn, markDelivered, refundCurrencyFor, refundLine, shipOrder, type RefundOutcome } from "@/db/queries/orders";
 import { requireUser } from "@/lib/auth/guard";
+import { revalidateOrderListingPages } from "@/lib/listings/listing-pages";
 import { formatMoney } from "@/lib/format/money";
 import { errorFormResult, zodFormResult } from "@/lib/orders/form-result";
 import type { FormResult } from "@/lib/validations/auth";
@@ -61,6 +62,7 @@ export async function cancelOrderAction(orderId: string, currency: string): Prom
     return errorFormResult(error, "cancel");
   }
   revalidateOrder(orderId);
+  await revalidateOrderListingPages(orderId);
   return result;
 }
 

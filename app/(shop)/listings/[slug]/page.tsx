@@ -10,7 +10,7 @@ import { Figure } from "@/components/ui/figure";
 import { Panel } from "@/components/ui/panel";
 import { StateBadge } from "@/components/ui/state-badge";
 import { Table, TBody, TD, TH, THead, TRow } from "@/components/ui/table";
-import { Suspense } from "react";
+import { cache, Suspense } from "react";
 import { ListingQuestions } from "@/components/qa/listing-questions";
 import { ListingFits } from "@/components/catalog/listing-fits";
 import { MagneticDerivedFigures } from "@/components/catalog/magnetic-derived-figures";
@@ -22,18 +22,30 @@ import { formatMoney } from "@/lib/format/money";
 import { kindLabel, STAGE_LABELS, subtypeLabel } from "@/lib/listings/labels";
 import { checkSafetySheet } from "@/lib/policy";
 
-export const dynamic = "force-dynamic";
+// Rendered on a page's first request and then served from Next's cache: nothing below reads the
+// session (the header's per-person part is fetched on the client). Every change to what the page
+// shows calls lib/listings/listing-pages.ts, which refreshes it on this instance at once; the window
+// bounds other instances, the worker's changes, and what it shows of other listings (the fits).
+// Buying still goes through the server, which refuses a listing that is no longer live or in stock.
+export const revalidate = 60;
+
+export function generateStaticParams(): { slug: string }[] {
+  return [];
+}
 
 type Props = { params: Promise<{ slug: string }> };
 
+// The metadata and the page read the same listing once per render.
+const publicListing = cache(getPublicListing);
+
 export async function generateMetadata({ params }: Props): Promise<Metadata> {
-  const listing = await getPublicListing((await params).slug);
+  const listing = await publicListing((await params).slug);
   return { title: listing?.listing.title ?? "Listing not found" };
 }
 
 export default async function ListingPage({ params }: Props) {
   const { slug } = await params;
-  const [data, revision] = await Promise.all([getPublicListing(slug), currentPolicyRevision()]);
+  const [data, revision] = await Promise.all([publicListing(slug), currentPolicyRevision()]);
   if (!data) notFound();
   const { listing } = data;
   const check = checkSafetySheet({ declaration: listing.declaration, notes: listing.safetyNotes, revision });

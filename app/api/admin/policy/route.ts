@@ -4,6 +4,7 @@ import { guardRoute } from "@/lib/auth/guard";
 import { jsonError } from "@/lib/http/json";
 import { readOptionalJson } from "@/lib/http/json";
 import { publishPolicyRevision } from "@/lib/moderation/publish-policy";
+import { revalidateAllListingPages } from "@/lib/listings/listing-pages";
 
 export const dynamic = "force-dynamic";
 
@@ -23,6 +24,7 @@ export const POST = guardRoute(["admin"], async (request, user) => {
   try {
     const outcome = await publishPolicyRevision(user, read.body);
     if (!outcome.ok) return jsonError(outcome.status, outcome.status === 403 ? "forbidden" : "invalid_input", outcome.message, outcome.fieldErrors);
+    revalidateAllListingPages();
     return Response.json({ revision: outcome.revision }, { status: 201 });
   } catch (error) {
     console.error("[admin/policy]", error);

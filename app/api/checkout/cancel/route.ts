@@ -2,6 +2,7 @@ import { NextResponse } from "next/server";
 import { z } from "zod";
 import { getSessionUser } from "@/lib/auth/guard";
 import { env } from "@/lib/env";
+import { revalidateCheckoutListingPages } from "@/lib/listings/listing-pages";
 import { cancelCheckout } from "@/lib/payments/checkout";
 
 export const dynamic = "force-dynamic";
@@ -19,6 +20,7 @@ export async function GET(request: Request): Promise<Response> {
   if (!parsed.success || !user) return NextResponse.redirect(new URL("/cart", base), 303);
   try {
     const { redirectTo } = await cancelCheckout(parsed.data.checkout, user.id);
+    await revalidateCheckoutListingPages(parsed.data.checkout);
     return NextResponse.redirect(new URL(redirectTo, base), 303);
   } catch (error) {
     // The hold still ends at its expiry; the buyer's cart is intact either way.

@@ -2,6 +2,7 @@
 import { ListingError, setStock } from "@/db/queries/listings";
 import { guardRoute } from "@/lib/auth/guard";
 import { jsonError, parseJsonBody } from "@/lib/http/json";
+import { revalidateListingPages } from "@/lib/listings/listing-pages";
 import { stockUpdateSchema } from "@/lib/validations/listings";
 
 export const PATCH = guardRoute<{ id: string }>(["seller"], async (request, user, { params }) => {
@@ -9,7 +10,9 @@ export const PATCH = guardRoute<{ id: string }>(["seller"], async (request, user
   const parsed = await parseJsonBody(request, stockUpdateSchema);
   if (!parsed.ok) return parsed.response;
   try {
-    return Response.json(await setStock(user.id, id, parsed.data.stock));
+    const result = await setStock(user.id, id, parsed.data.stock);
+    await revalidateListingPages([id]);
+    return Response.json(result);
   } catch (error) {
     if (error instanceof ListingError) {
       const code = error.status === 404 ? "not_found" : error.status === 409 ? "conflict" : "invalid_input";
