@@ -122,6 +122,8 @@ export const DEMO_LOGS: DemoLog[] = [
 
 export const logId = (n: number) => demoUuid("log", n);
 export const logCheckpointId = (log: number, position: number) => demoUuid("log-checkpoint", log * 100 + position);
+/** The reading at `index` of a demo log's `readings`. */
+export const readingId = (log: number, index: number) => demoUuid("reading", log * 100 + index);
 
 const DAY_MS = 24 * 60 * 60 * 1000;
 
@@ -182,11 +184,11 @@ export async function seedBench(tx: SeedTx, clock: DemoClock): Promise<number> {
       const checkpoint = checkpoints.find((c) => c.name === r.checkpoint);
       if (!checkpoint) throw new Error(`demo log ${log.n} has no checkpoint “${r.checkpoint}”`);
       const verdict = classifyReading({ value: r.value, min: checkpoint.min, max: checkpoint.max });
-      const readingId = demoUuid("reading", log.n * 100 + i);
+      const id = readingId(log.n, i);
       // Readings of one evening a few minutes apart, in the order they are listed.
       const takenAt = new Date(started.getTime() + r.day * DAY_MS + i * 7 * 60_000);
       await tx.insert(schema.readings).values({
-        id: readingId,
+        id,
         logId: logId(log.n),
         checkpointId: checkpoint.id,
         value: r.value,
@@ -213,7 +215,7 @@ export async function seedBench(tx: SeedTx, clock: DemoClock): Promise<number> {
           height: r.photo.height,
           createdAt: takenAt,
         });
-        await tx.insert(schema.readingPhotos).values({ id: demoUuid("reading-photo", log.n * 100 + i), readingId, uploadKey: key, position: 0, caption: r.photo.caption });
+        await tx.insert(schema.readingPhotos).values({ id: demoUuid("reading-photo", log.n * 100 + i), readingId: id, uploadKey: key, position: 0, caption: r.photo.caption });
       }
     }
   }

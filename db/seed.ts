@@ -1,7 +1,8 @@
 // Idempotent demo seed: every row has a fixed key and is inserted only when missing, so running it
 // twice changes nothing. The base (accounts, shops, the first listings) is what the tests build on;
 // `everyState` adds the rest of the scenario, in which every journey shows each of its states: orders,
-// bring-up logs, reviews, the Q&A, applications and a policy revision with its grace period running.
+// bring-up logs with their scope captures, reviews, the Q&A, applications and a policy revision with its
+// grace period running.
 // `npm run db:seed` or the launcher (`npm start`) seed all of it.
 import { drizzle } from "drizzle-orm/node-postgres";
 import pg from "pg";
@@ -13,6 +14,7 @@ import { deriveMagnetic } from "@/lib/listings/derived";
 import type { MagneticFigures } from "@/lib/validations/listings";
 import { seedApplications } from "./seed-applications";
 import { seedBench } from "./seed-bench";
+import { seedCaptures } from "./seed-captures";
 import { seedOrders } from "./seed-orders";
 import { seedPolicy } from "./seed-policy";
 import { seedQa } from "./seed-qa";
@@ -81,6 +83,7 @@ async function seedEveryState(tx: SeedTx, clock: DemoClock): Promise<number> {
   inserted += await seedOrders(tx, clock);
   inserted += await seedBench(tx, clock);
   inserted += await seedReviews(tx, clock);
+  inserted += await seedCaptures(tx, clock);
   inserted += await seedQa(tx, clock);
   return inserted;
 }

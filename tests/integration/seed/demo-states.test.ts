@@ -4,11 +4,14 @@
 // a few days later, changes nothing. The data is also checked against the product's rules from the
 // outside: fees, refunds, verdicts and deadlines recomputed here, and the worker's own sweeps, run
 // right after seeding, find nothing to change (so the states survive `npm start`).
+import { readFileSync } from "node:fs";
+import path from "node:path";
 import pg from "pg";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import {
   APPLICATION_STATUSES,
   BRING_UP_STAGES,
+  CAPTURE_STATES,
   CHECKOUT_STATUSES,
   CHECKPOINT_VERDICTS,
   DISPUTE_OUTCOMES,
@@ -26,6 +29,7 @@ import {
   ROLES,
 } from "@/db/schema";
 import { seedDemo } from "@/db/seed";
+import type { LogViewer } from "@/lib/bench/log-access";
 import { freshDatabase } from "../../support/test-database";
 
 const NOW = new Date();
@@ -108,6 +112,7 @@ describe("the demo seed with every state", () => {
     ["bring_up_logs", "visibility", LOG_VISIBILITIES],
     ["log_checkpoints", "stage", BRING_UP_STAGES],
     ["readings", "verdict", READING_VERDICTS],
+    ["captures", "state", CAPTURE_STATES],
     ["questions", "state", POST_STATES],
     ["answers", "state", POST_STATES],
     ["review_sessions", "state", REVIEW_STATES],
@@ -123,11 +128,10 @@ describe("the demo seed with every state", () => {
 
   // Enumerations that name a kind of thing rather than a state; the demo need not show each.
   const NOT_STATES: Record<string, string> = {
-    upload_purpose: "what a file is for; the demo has photos, not documents or captures",
+    upload_purpose: "what a file is for; the demo has photos and captures, not documents",
     document_kind: "the kind of a listing document; the demo lists none",
     post_kind: "question or answer, on flags and photos",
     mail_status: "the outbox's delivery state; the seed queues no mail (what people do in the demo does)",
-    capture_state: "waveform captures (issue 7) are not in the demo yet: seed them once their schema lands, then remove this line",
   };
   it("covers every value of every enum column in the database, not only the ones listed above", async () => {
     const { rows } = await pool.query<{ table_name: string; column_name: string; type: string; labels: string[] }>(`
@@ -320,11 +324,12 @@ describe("the states survive the worker", () => {
     expect(open.expires_at.getTime()).toBeGreaterThan(NOW.getTime());
   });
 
-  it("leaves nothing for the sweeps to expire, close, capture, release, transfer, refund or hold", async () => {
+  it("leaves nothing for the sweeps to expire, close, capture, release, transfer, refund, hold or measure", async () => {
     const reviews = await import("@/db/queries/reviews");
     const checkout = await import("@/db/queries/checkout");
     const moderation = await import("@/db/queries/moderation");
     const orders = await import("@/db/queries/orders");
+    const captures = await import("@/db/queries/captures");
     expect(await reviews.sessionsDueForExpiry(NOW)).toEqual([]);
     expect(await reviews.sessionsDueForClosing(NOW)).toEqual([]);
     expect(await reviews.releasesDue()).toEqual([]);
@@ -333,6 +338,7 @@ describe("the states survive the worker", () => {
     expect(await checkout.lateRefundsDue()).toEqual([]);
     expect(await checkout.overdueCheckouts(NOW, 2 * 60_000)).toEqual([]);
     expect(await moderation.listingsPastGrace(NOW)).toEqual([]);
+    expect(await captures.strandedCaptureIds()).toEqual([]);
     expect(await orders.settlePendingRefunds({ olderThanMs: 0 })).toEqual({ refunded: 0, pending: 0, failed: 0, reversed: 0 });
   });
 
@@ -341,3 +347,111 @@ describe("the states survive the worker", () => {
     expect((await currentPolicyRevision()).revision).toBe(3);
   });
 });
+
+describe("the demo's scope captures are the app's own measurements", () => {
+  const BUILDER: LogViewer = { id: "demo-builder", roles: ["member"] };
+  const REVIEWER: LogViewer = { id: "demo-reviewer", roles: ["member", "reviewer"] };
+  const one = async (sql: string, params: unknown[] = []) => (await pool.query(sql, params)).rows[0];
+
+  it("offers each capture's original as the very file in public/demo that the generator writes", async () => {
+    const { DEMO_CAPTURE_FILES } = await import("@/db/seed-capture-files");
+    const { rows } = await pool.query("select u.url, u.bytes, u.original_name, u.purpose::text from captures c join uploads u on u.key = c.upload_key order by c.created_at");
+    expect(rows).toHaveLength(DEMO_CAPTURE_FILES.length);
+    for (const make of DEMO_CAPTURE_FILES) {
+      const { file, text } = make();
+      // `npx tsx db/seed-capture-files.ts` writes them again after a change to the generator.
+      const onDisk = readFileSync(path.resolve(import.meta.dirname, "../../../public/demo", file), "utf8");
+      expect(onDisk === text, `public/demo/${file} is the generator's output`).toBe(true);
+      expect(rows.find((r) => r.url === `/demo/${file}`)).toEqual({ url: `/demo/${file}`, bytes: Buffer.byteLength(text), original_name: file, purpose: "capture" });
+    }
+  });
+
+  it("stores for the measured capture exactly what the app's measuring stores: figures, ranges and sample blocks", async () => {
+    const { measureText } = await import("@/lib/captures/measure");
+    const { firstBoardGateDrive } = await import("@/db/seed-capture-files");
+    const expected = await measureText(firstBoardGateDrive().text, async () => {});
+    const capture = await one("select * from captures where state = 'measured'");
+    expect({
+      sampleCount: capture.sample_count,
+      startTimeS: capture.start_time_s,
+      endTimeS: capture.end_time_s,
+      sampleIntervalS: capture.sample_interval_s,
+      evenlySpaced: capture.evenly_spaced,
+      progress: capture.progress,
+    }).toEqual({ ...pick(expected, ["sampleCount", "startTimeS", "endTimeS", "sampleIntervalS", "evenlySpaced"]), progress: 100 });
+    const { rows: channels } = await pool.query("select name, unit, min_value, max_value, figures from capture_channels where capture_id = $1 order by position", [capture.id]);
+    expect(channels.map((c) => ({ name: c.name, unit: c.unit, minValue: c.min_value, maxValue: c.max_value, figures: c.figures }))).toEqual(expected.channels);
+    const { rows: blocks } = await pool.query("select series, block, first_index, sample_count, first_time_s, last_time_s, data from capture_blocks where capture_id = $1 order by block, series", [capture.id]);
+    expect(blocks.map((b) => ({ series: b.series, block: b.block, firstIndex: b.first_index, sampleCount: b.sample_count, firstTimeS: b.first_time_s, lastTimeS: b.last_time_s, data: b.data }))).toEqual(
+      [...expected.blocks].sort((a, b) => a.block - b.block || a.series - b.series),
+    );
+  });
+
+  it("measures log 1's gate drive at the 40.1 kHz and 46 % its readings say, and proposes the frequency reading's value from it", async () => {
+    const queries = await import("@/db/queries/captures");
+    const { captureStatusView } = await import("@/lib/captures/status-view");
+    const { id } = await one("select id from captures where state = 'measured'");
+    // What a visitor of the public log sees, through the app's own read.
+    const detail = await queries.captureForViewer(null, id);
+    expect(detail).not.toBeNull();
+    expect(detail!.log.title).toBe("Stick welder from the yard kit");
+    expect(detail!.checkpoint.name).toBe("Gate-drive frequency");
+    const duty = await one("select r.value from readings r join log_checkpoints c on c.id = r.checkpoint_id where r.log_id = $1 and c.name = 'Gate-drive duty cycle'", [detail!.log.id]);
+    expect(detail!.channels.map((c) => c.name)).toEqual(["Q1 gate", "Q2 gate"]);
+    for (const c of detail!.channels) {
+      expect(c.figures.frequencyHz! / 1000).toBeCloseTo(detail!.reading.value, 1);
+      expect(c.figures.dutyCyclePct!).toBeCloseTo(duty.value, 0);
+    }
+    const view = captureStatusView(detail!);
+    expect(view.applied).toBeNull();
+    expect(view.proposal).toMatchObject({ ok: true, figure: "frequencyHz" });
+    const options = view.proposal!.ok ? view.proposal!.options : [];
+    expect(options.map((o) => o.channelName)).toEqual(["Q1 gate", "Q2 gate"]);
+    for (const o of options) {
+      expect(o.unit).toBe("kHz");
+      expect(o.value).toBeGreaterThanOrEqual(detail!.checkpoint.expectedMin);
+      expect(o.value).toBeLessThanOrEqual(detail!.checkpoint.expectedMax);
+    }
+    // The viewer's zoom reads the samples back from the blocks.
+    const window = await queries.readCaptureSamples(detail!.capture, 0, 25e-6, [0, 1]);
+    expect(window.timeS.length).toBeGreaterThan(400);
+  });
+
+  it("keeps the failed capture's reason as the parser gives it, naming the line where time goes backwards", async () => {
+    const { parseCaptureCsv } = await import("@/lib/engineering");
+    const { appendedRecords } = await import("@/db/seed-capture-files");
+    const capture = await one("select error_message from captures where state = 'failed'");
+    expect(() => parseCaptureCsv(appendedRecords().text)).toThrow(capture.error_message);
+    expect(capture.error_message).toMatch(/^Line \d+: time goes backwards \(.+\); the time column must increase\.$/);
+  });
+
+  it("pins the reviewer's comments from the delivered session to the trace: the builder and the reviewer read them, a visitor does not", async () => {
+    const queries = await import("@/db/queries/captures");
+    const capture = await one("select id, start_time_s, end_time_s from captures where state = 'measured'");
+    const builderPins = await queries.pinsFor(capture.id, BUILDER, "owner");
+    expect(builderPins).toHaveLength(2);
+    for (const p of builderPins) {
+      expect(p.timeS).toBeGreaterThanOrEqual(capture.start_time_s);
+      expect(p.timeS).toBeLessThanOrEqual(capture.end_time_s);
+    }
+    expect(await queries.pinsFor(capture.id, REVIEWER, "reviewer")).toHaveLength(2);
+    expect(await queries.pinsFor(capture.id, null, "public")).toEqual([]);
+    const { rows } = await pool.query(
+      "select s.state::text, p.created_at > s.accepted_at and p.created_at < s.delivered_at as while_writing from capture_pins p join review_sessions s on s.id = p.session_id",
+    );
+    expect(rows).toEqual([
+      { state: "delivered", while_writing: true },
+      { state: "delivered", while_writing: true },
+    ]);
+  });
+
+  it("keeps the waiting captures out of the worker's sweep for years, since the worker cannot fetch a site-relative demo file", async () => {
+    const { rows } = await pool.query("select state::text, updated_at from captures where state in ('queued', 'measuring') order by state");
+    expect(rows.map((r) => r.state)).toEqual(["measuring", "queued"]);
+    for (const r of rows) expect(r.updated_at.getTime()).toBeGreaterThan(NOW.getTime() + 5 * 365 * DAY_MS);
+  });
+});
+
+function pick<T extends object, K extends keyof T>(value: T, keys: K[]): Pick<T, K> {
+  return Object.fromEntries(keys.map((k) => [k, value[k]])) as Pick<T, K>;
+}
