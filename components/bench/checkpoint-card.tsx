@@ -1,6 +1,7 @@
 import type { ReactNode } from "react";
 import { Card } from "@/components/ui/card";
 import type { CheckpointView } from "@/db/queries/bench";
+import { DeferredDetails } from "./deferred-details";
 import { formatRange } from "./format";
 import { ReadingList } from "./reading-list";
 
@@ -9,7 +10,7 @@ export function CheckpointCard({ checkpoint, form }: { checkpoint: CheckpointVie
   return (
     <Card data-testid="checkpoint" data-checkpoint-name={checkpoint.name} className="space-y-3">
       <header className="flex flex-wrap items-baseline justify-between gap-2">
-        <h4 className="text-base font-semibold text-graphite-900">{checkpoint.name}</h4>
+        <h3 className="text-base font-semibold text-graphite-900">{checkpoint.name}</h3>
         <p className="text-sm text-graphite-700">
           Expected <span className="figure font-mono font-semibold" data-testid="expected-range">{formatRange(checkpoint.expectedMin, checkpoint.expectedMax, checkpoint.unit)}</span>
           {checkpoint.addedByBuilder ? <span className="ml-2 text-xs text-graphite-600">(added by the builder)</span> : null}
@@ -18,10 +19,15 @@ export function CheckpointCard({ checkpoint, form }: { checkpoint: CheckpointVie
       <p className="text-sm text-graphite-700">{checkpoint.measure}</p>
       <ReadingList checkpoint={checkpoint} />
       {form ? (
-        <details className="rounded border border-graphite-200 bg-paper-sunken px-3 py-2" data-testid="record-reading">
-          <summary className="cursor-pointer font-medium text-copper-700">Record a reading</summary>
-          <div className="pt-3">{form}</div>
-        </details>
+        <DeferredDetails
+          className="rounded border border-graphite-200 bg-paper-sunken px-3 py-2"
+          testId="record-reading"
+          summary="Record a reading"
+          summaryClassName="cursor-pointer font-medium text-copper-700"
+          bodyClassName="pt-3"
+        >
+          {form}
+        </DeferredDetails>
       ) : null}
     </Card>
   );

@@ -25,6 +25,8 @@ export type CaptureCardProps = {
   remove?: () => Promise<CaptureActionResult>;
   /** re-render the page once measuring ends (the viewer page swaps the card for the trace) */
   refreshWhenDone?: boolean;
+  /** the proposal's heading level: 4 under a log's "Scope captures", 3 in a capture page's panel-level flow */
+  proposalHeadingLevel?: 3 | 4;
 };
 
 function Summary({ status }: { status: CaptureStatusView }) {
@@ -62,7 +64,7 @@ function Summary({ status }: { status: CaptureStatusView }) {
 }
 
 /** One capture on a reading: its state while measured (polled), the parser's message, the main figures, the proposal. */
-export function CaptureCard({ initial, viewerHref, confirm, remove, refreshWhenDone = false }: CaptureCardProps) {
+export function CaptureCard({ initial, viewerHref, confirm, remove, refreshWhenDone = false, proposalHeadingLevel = 4 }: CaptureCardProps) {
   const queryClient = useQueryClient();
   const router = useRouter();
   const { data: status, error: pollError } = useCaptureStatus(initial);
@@ -144,6 +146,7 @@ export function CaptureCard({ initial, viewerHref, confirm, remove, refreshWhenD
               currentValue={status.reading.value}
               confirm={status.canEdit ? confirm : undefined}
               onConfirmed={confirmed}
+              headingLevel={proposalHeadingLevel}
             />
           ) : null}
         </>

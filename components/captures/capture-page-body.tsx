@@ -64,7 +64,7 @@ export function CapturePageBody({ detail, status, initialWindow, pins, pin, conf
 
       {status.state !== "measured" || !initialWindow ? (
         <ul>
-          <CaptureCard initial={status} viewerHref={selfHref} confirm={detail.canEdit ? confirm : undefined} refreshWhenDone />
+          <CaptureCard initial={status} viewerHref={selfHref} confirm={detail.canEdit ? confirm : undefined} refreshWhenDone proposalHeadingLevel={3} />
         </ul>
       ) : (
         <CaptureWorkspace

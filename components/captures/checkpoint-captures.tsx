@@ -1,3 +1,4 @@
+import { DeferredDetails } from "@/components/bench/deferred-details";
 import { formatReading, formatTakenAt } from "@/components/bench/format";
 import type { CheckpointView } from "@/db/queries/bench";
 import type { CaptureActionResult } from "@/lib/captures/action-schemas";
@@ -60,13 +61,16 @@ export function CheckpointCaptures({
         </>
       ) : null}
       {actions && readings.length > 0 ? (
-          <details className="rounded border border-graphite-200 bg-paper-raised px-3 py-2" data-testid="attach-capture-details">
-            <summary className="cursor-pointer text-sm font-medium text-copper-700">Attach a scope capture{captures.length > 0 ? " to another reading or probe point" : ""}</summary>
-            <div className="space-y-3 pt-3">
-              {caution ? <ProbeCautionNote caution={caution} /> : null}
-              <AttachCaptureForm checkpointName={checkpoint.name} readings={readings} attach={actions.attach} />
-            </div>
-          </details>
+          <DeferredDetails
+            className="rounded border border-graphite-200 bg-paper-raised px-3 py-2"
+            testId="attach-capture-details"
+            summary={`Attach a scope capture${captures.length > 0 ? " to another reading or probe point" : ""}`}
+            summaryClassName="cursor-pointer text-sm font-medium text-copper-700"
+            bodyClassName="space-y-3 pt-3"
+            lead={caution ? <ProbeCautionNote caution={caution} /> : null}
+          >
+            <AttachCaptureForm checkpointName={checkpoint.name} readings={readings} attach={actions.attach} />
+          </DeferredDetails>
       ) : null}
     </section>
   );

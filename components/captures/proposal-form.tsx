@@ -17,14 +17,17 @@ export type ProposalFormProps = {
   confirm?: (input: unknown) => Promise<CaptureActionResult>;
   /** the card shows the answer: this form is gone once the figure is applied */
   onConfirmed?: (result: Extract<CaptureActionResult, { ok: true }>) => void;
+  /** where the form sits in the page's outline: under a stage's checkpoint (4) or a panel (3) */
+  headingLevel?: 3 | 4;
 };
 
 /**
  * The figure the capture gives for the checkpoint, proposed as the reading's value. Nothing
  * changes until the builder confirms; the server then works the figure out again and classifies it.
  */
-export function ProposalForm({ proposal, checkpoint, currentValue, confirm, onConfirmed }: ProposalFormProps) {
+export function ProposalForm({ proposal, checkpoint, currentValue, confirm, onConfirmed, headingLevel = 4 }: ProposalFormProps) {
   const id = useId();
+  const Heading = `h${headingLevel}` as const;
   const [channel, setChannel] = useState(proposal.ok ? (proposal.options[0]?.channel ?? 0) : 0);
   const [result, setResult] = useState<CaptureActionResult | null>(null);
   const [pending, startTransition] = useTransition();
@@ -51,9 +54,9 @@ export function ProposalForm({ proposal, checkpoint, currentValue, confirm, onCo
 
   return (
     <section aria-labelledby={`${id}-title`} className="space-y-3 rounded border border-copper-300 bg-copper-50 px-3 py-3" data-testid="capture-proposal">
-      <h4 id={`${id}-title`} className="text-sm font-semibold text-graphite-900">
+      <Heading id={`${id}-title`} className="text-sm font-semibold text-graphite-900">
         Proposed reading
-      </h4>
+      </Heading>
       <p className="text-sm text-graphite-800">
         <data value={String(option.value)} className="figure font-mono text-lg font-semibold text-graphite-900" data-testid="proposed-value">
           {formatReading(option.value, option.unit)}

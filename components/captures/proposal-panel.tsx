@@ -28,6 +28,7 @@ export function ProposalPanel({ initial, confirm }: { initial: CaptureStatusView
           checkpoint={status.checkpoint}
           currentValue={status.reading.value}
           confirm={confirm}
+          headingLevel={3}
           onConfirmed={(answer) => {
             setMessage(answer);
             void queryClient.invalidateQueries({ queryKey: captureStatusKey(status.id) });

@@ -1,6 +1,6 @@
 "use client";
 
-import { generateReactHelpers } from "@uploadthing/react";
+import type { generateReactHelpers } from "@uploadthing/react";
 import type { UploadRouter } from "@/app/api/uploadthing/core";
 import type { UploadRouteName } from "@/lib/uploads/limits";
 import type { UploadServerData } from "@/lib/uploads/process-upload";
@@ -25,9 +25,10 @@ export async function uploadOneFile(
   file: File,
   { onProgress, signal }: { onProgress: (percent: number) => void; signal?: AbortSignal },
 ): Promise<UploadServerData> {
-  // Created on first use, in the browser: the helpers resolve /api/uploadthing against window.location.
-  helpers ??= generateReactHelpers<UploadRouter>();
   try {
+    // Loaded and created on first use, in the browser: the helpers resolve /api/uploadthing against
+    // window.location, and the upload client is too big to hold back every page with an upload form.
+    helpers ??= (await import("@uploadthing/react")).generateReactHelpers<UploadRouter>();
     const [result] = await helpers.uploadFiles(endpoint, {
       files: [file],
       signal,

@@ -1,12 +1,12 @@
 import { z } from "zod";
+import { addFieldError, fieldErrorsFromZod, type FieldErrors } from "@/lib/http/field-errors";
+import { DEFAULT_POINTS, MAX_POINTS, MIN_POINTS, type TimeSpan } from "./window-url";
 
 // The query of GET /api/captures/[id]/window: a time window in seconds, how many points to draw
-// and optionally one channel. Shared by the route (422 on anything else) and the viewer.
+// and optionally one channel. The route answers 422 on anything else; the viewer builds its URLs
+// with ./window-url.ts, which keeps this schema out of the browser.
 
-/** Enough for a plot a few thousand pixels wide; LTTB needs at least the two end points. */
-export const MIN_POINTS = 2;
-export const MAX_POINTS = 5000;
-export const DEFAULT_POINTS = 1200;
+export { DEFAULT_POINTS, MAX_POINTS, MIN_POINTS, windowUrl, type TimeSpan } from "./window-url";
 
 // "" and "abc" are errors, not 0 or NaN: URLSearchParams gives strings, and Number("") is 0.
 const seconds = (what: string) =>
@@ -43,32 +43,26 @@ export const windowQuerySchema = z
 
 export type WindowQuery = { from?: number; to?: number; points: number; channel?: number };
 
-export type ParsedWindowQuery = { ok: true; query: WindowQuery } | { ok: false; fieldErrors: Record<string, string[]> };
+export type ParsedWindowQuery = { ok: true; query: WindowQuery } | { ok: false; fieldErrors: FieldErrors };
+
+const unknownParameter = (issue: z.core.$ZodIssue) =>
+  issue.code === "unrecognized_keys" ? `Unknown parameter: ${issue.keys.join(", ")}. Use from, to, points and channel.` : issue.message;
 
 /** Reads the search parameters; each may appear once. */
 export function parseWindowQuery(params: URLSearchParams): ParsedWindowQuery {
-  // Prototype-free records: a parameter named "constructor" or "toString" is just an unknown parameter.
+  // Prototype-free: a parameter named "constructor" or "toString" is just an unknown parameter.
   const raw: Record<string, string> = Object.create(null);
-  const fieldErrors: Record<string, string[]> = Object.create(null);
+  const repeated: FieldErrors = {};
   for (const [key, value] of params) {
-    if (key in raw) (fieldErrors[key] ??= []).push(`${key} may be given only once.`);
+    if (key in raw) addFieldError(repeated, key, `${key} may be given only once.`);
     raw[key] = value;
   }
-  if (Object.keys(fieldErrors).length > 0) return { ok: false, fieldErrors };
+  if (Object.keys(repeated).length > 0) return { ok: false, fieldErrors: repeated };
   const parsed = windowQuerySchema.safeParse(raw);
-  if (!parsed.success) {
-    for (const issue of parsed.error.issues) {
-      const key = issue.code === "unrecognized_keys" ? issue.keys.join(",") : issue.path.map(String).join(".");
-      const message = issue.code === "unrecognized_keys" ? `Unknown parameter: ${issue.keys.join(", ")}. Use from, to, points and channel.` : issue.message;
-      (fieldErrors[key] ??= []).push(message);
-    }
-    return { ok: false, fieldErrors };
-  }
+  if (!parsed.success) return { ok: false, fieldErrors: fieldErrorsFromZod(parsed.error, unknownParameter) };
   const { from, to, points, channel } = parsed.data;
   return { ok: true, query: { from, to, points: points ?? DEFAULT_POINTS, channel } };
 }
-
-export type TimeSpan = { from: number; to: number };
 
 /**
  * The asked window clamped to the capture's time span; null when it does not overlap the capture
@@ -79,11 +73,4 @@ export function clampWindow(query: Pick<WindowQuery, "from" | "to">, capture: Ti
   const to = Math.min(query.to ?? capture.to, capture.to);
   if (!(from < to)) return capture.from === capture.to && from === to ? { from, to } : null;
   return { from, to };
-}
-
-/** The URL the viewer asks for a window. */
-export function windowUrl(captureId: string, window: TimeSpan, points: number, channel?: number): string {
-  const params = new URLSearchParams({ from: String(window.from), to: String(window.to), points: String(points) });
-  if (channel !== undefined) params.set("channel", String(channel));
-  return `/api/captures/${encodeURIComponent(captureId)}/window?${params.toString()}`;
 }

@@ -1,8 +1,9 @@
 // The JSON error shape every route answers with: a code for programs, a sentence for people, and
 // the field errors a form shows beside its inputs.
 
-/** Field path ("declaration.mainsVrms") → messages; "" holds errors about the body as a whole. */
-export type FieldErrors = Record<string, string[]>;
+import type { FieldErrors } from "./field-errors";
+
+export type { FieldErrors } from "./field-errors";
 
 export interface JsonErrorBody {
   error: string;

@@ -1,21 +1,11 @@
 import type { z } from "zod";
 import { EngineeringInputError } from "@/lib/engineering/errors";
 import { crossSiteRefusal } from "./cross-site";
-import { invalidInput, jsonError, type FieldErrors } from "./json-error";
+import { fieldErrorsFromZod } from "./field-errors";
+import { invalidInput, jsonError } from "./json-error";
 
-export { invalidInput, jsonError, type FieldErrors, type JsonErrorBody } from "./json-error";
-
-export function fieldErrorsFromZod(error: z.ZodError): FieldErrors {
-  // A plain object (server actions hand it to client components), filled through own properties only,
-  // so a field path such as "constructor" or "__proto__" cannot reach Object.prototype.
-  const out: FieldErrors = {};
-  for (const issue of error.issues) {
-    const key = issue.path.map(String).join(".");
-    if (!Object.hasOwn(out, key)) Object.defineProperty(out, key, { value: [], enumerable: true, writable: true, configurable: true });
-    out[key]!.push(issue.message);
-  }
-  return out;
-}
+export { fieldErrorsFromZod, type FieldErrors } from "./field-errors";
+export { invalidInput, jsonError, type JsonErrorBody } from "./json-error";
 
 // Calculator and policy bodies are a few hundred bytes; anything this large is not a form.
 const MAX_BODY_BYTES = 64 * 1024;

@@ -1,7 +1,7 @@
 import { z } from "zod";
+import { MAX_LINE_QUANTITY } from "./cart-limits";
 
-/** A buyer may ask for at most this many of one item; stock caps it further. */
-export const MAX_LINE_QUANTITY = 99;
+export { MAX_LINE_QUANTITY } from "./cart-limits";
 
 const listingId = z.uuid({ message: "That item is not in the catalog." });
 

@@ -3,10 +3,13 @@
  * that keeps the URL in step, so a link, a reload and an API call all mean the same search.
  * Prices are integer minor units in the URL and the API; the filter controls show major units.
  */
-import { z } from "zod";
+import * as z from "zod/mini";
 import { NUL_ERROR, NUL_FREE } from "./text";
 import type { ListingKind, MagneticSubtype } from "@/db/schema/listings";
-import { fieldErrorsFromZod, type FieldErrors } from "@/lib/http/json";
+import { fieldErrorsFromZod, type FieldErrors } from "@/lib/http/field-errors";
+
+// Written with zod/mini, whose functions are tree-shaken: the catalog's client code parses the URL
+// with this schema, and the full zod would be most of that page's JavaScript beyond the framework.
 
 // Spelled out rather than imported so the client bundle does not pull in the Drizzle schema;
 // tests/unit/catalog checks they equal the schema's enums.
@@ -28,52 +31,63 @@ const FALSE_WORDS = ["0", "false", "no", "off"] as const;
 
 // A form submitted with an empty field (`?kind=`) means "no filter", not an invalid kind.
 const blankIsAbsent = (value: unknown) => (typeof value === "string" && value.trim() === "" ? undefined : value);
-const optional = <S extends z.ZodType>(schema: S) => z.preprocess(blankIsAbsent, schema.optional());
+// Typed by hand: TypeScript cannot check a generic schema against the transform's output itself.
+const optional = <S extends z.ZodMiniType>(schema: S) =>
+  z.pipe(z.transform(blankIsAbsent), z.optional(schema)) as unknown as z.ZodMiniPipe<z.ZodMiniTransform<unknown, unknown>, z.ZodMiniOptional<S>>;
 
 const minorUnits = (label: string) =>
   z.coerce
     .number({ error: `${label} must be a whole number of cents.` })
-    .int({ error: `${label} must be a whole number of cents.` })
-    .gte(0, { error: `${label} cannot be below zero.` })
-    .lte(MAX_PRICE_MINOR, { error: `${label} is too large.` });
+    .check(
+      z.int({ error: `${label} must be a whole number of cents.` }),
+      z.gte(0, { error: `${label} cannot be below zero.` }),
+      z.lte(MAX_PRICE_MINOR, { error: `${label} is too large.` }),
+    );
 
 export const catalogQuerySchema = z
   .object({
-    q: optional(z.string().regex(NUL_FREE, NUL_ERROR).trim().max(MAX_QUERY_LENGTH, { error: `Keep the search under ${MAX_QUERY_LENGTH} characters.` })),
+    q: optional(z.string().check(z.regex(NUL_FREE, NUL_ERROR), z.trim(), z.maxLength(MAX_QUERY_LENGTH, { error: `Keep the search under ${MAX_QUERY_LENGTH} characters.` }))),
     kind: optional(z.enum(CATALOG_KINDS, { error: "Kind is one of board, magnetic or kit." })),
     subtype: optional(z.enum(CATALOG_SUBTYPES, { error: "Subtype is one of transformer, choke or current-transformer." })),
     mains: optional(z.enum(["yes", "no"], { error: "Mains-connected is yes or no." })),
     minPrice: optional(minorUnits("The lowest price")),
     maxPrice: optional(minorUnits("The highest price")),
     inStock: optional(
-      z.enum([...TRUE_WORDS, ...FALSE_WORDS], { error: "In stock is 1 or 0." }).transform((v) => (TRUE_WORDS as readonly string[]).includes(v)),
+      z.pipe(
+        z.enum([...TRUE_WORDS, ...FALSE_WORDS], { error: "In stock is 1 or 0." }),
+        z.transform((v: (typeof TRUE_WORDS | typeof FALSE_WORDS)[number]) => (TRUE_WORDS as readonly string[]).includes(v)),
+      ),
     ),
     seller: optional(
-      z
-        .string()
-        .regex(NUL_FREE, NUL_ERROR)
-        .trim()
-        .toLowerCase()
-        .max(80, { error: "That shop handle is too long." })
-        .regex(/^[a-z0-9]+(?:-[a-z0-9]+)*$/, { error: "A shop handle has letters, digits and dashes only." }),
+      z.string().check(
+        z.regex(NUL_FREE, NUL_ERROR),
+        z.trim(),
+        z.toLowerCase(),
+        z.maxLength(80, { error: "That shop handle is too long." }),
+        z.regex(/^[a-z0-9]+(?:-[a-z0-9]+)*$/, { error: "A shop handle has letters, digits and dashes only." }),
+      ),
     ),
     sort: optional(z.enum(CATALOG_SORTS, { error: "Sort is relevance, newest, price-asc or price-desc." })),
     page: optional(
       z.coerce
         .number({ error: "Page must be a whole number." })
-        .int({ error: "Page must be a whole number." })
-        .gte(1, { error: "Pages start at 1." })
-        .lte(MAX_PAGE, { error: `Pages stop at ${MAX_PAGE}.` }),
+        .check(
+          z.int({ error: "Page must be a whole number." }),
+          z.gte(1, { error: "Pages start at 1." }),
+          z.lte(MAX_PAGE, { error: `Pages stop at ${MAX_PAGE}.` }),
+        ),
     ),
   })
-  .superRefine((v, ctx) => {
-    if (v.minPrice !== undefined && v.maxPrice !== undefined && v.minPrice > v.maxPrice) {
-      ctx.addIssue({ code: "custom", path: ["maxPrice"], message: "The highest price is below the lowest." });
-    }
-    if (v.subtype !== undefined && v.kind !== undefined && v.kind !== "magnetic") {
-      ctx.addIssue({ code: "custom", path: ["subtype"], message: "A subtype narrows magnetics only." });
-    }
-  });
+  .check(
+    z.superRefine((v, ctx) => {
+      if (v.minPrice !== undefined && v.maxPrice !== undefined && v.minPrice > v.maxPrice) {
+        ctx.addIssue({ code: "custom", path: ["maxPrice"], message: "The highest price is below the lowest." });
+      }
+      if (v.subtype !== undefined && v.kind !== undefined && v.kind !== "magnetic") {
+        ctx.addIssue({ code: "custom", path: ["subtype"], message: "A subtype narrows magnetics only." });
+      }
+    }),
+  );
 
 export type CatalogQuery = z.output<typeof catalogQuerySchema>;
 

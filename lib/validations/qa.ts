@@ -9,12 +9,10 @@
  *   POST /api/posts/[kind]/[id]/{approve,restore}  {}
  */
 import { z } from "zod";
+import { MAX_POST_PHOTOS, POST_BODY_MAX, QUESTION_TITLE_MAX } from "./qa-limits";
 import { NUL_ERROR, NUL_FREE } from "./text";
-import { UPLOAD_ROUTES } from "@/lib/uploads/limits";
 
-export const QUESTION_TITLE_MAX = 160;
-export const POST_BODY_MAX = 20_000;
-export const MAX_POST_PHOTOS = UPLOAD_ROUTES.readingPhoto.maxFiles;
+export { MAX_POST_PHOTOS, POST_BODY_MAX, QUESTION_TITLE_MAX } from "./qa-limits";
 
 const blankToUndefined = (v: unknown) => (v === "" || v === null ? undefined : v);
 
