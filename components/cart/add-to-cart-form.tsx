@@ -6,7 +6,7 @@ import { addToCartAction } from "@/app/(shop)/cart/actions";
 import { Button } from "@/components/ui/button";
 import { NumberField } from "@/components/ui/field";
 import { FormMessage } from "@/components/ui/form-message";
-import { MAX_LINE_QUANTITY } from "@/lib/validations/cart";
+import { MAX_LINE_QUANTITY } from "@/lib/validations/cart-limits";
 
 /** The listing page's "Add to cart": the quantity is capped by stock on the server as well. */
 export function AddToCartForm({ listingId, stock }: { listingId: string; stock: number }) {

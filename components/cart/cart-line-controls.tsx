@@ -4,7 +4,7 @@ import { useActionState } from "react";
 import { removeCartLineAction, updateCartLineAction } from "@/app/(shop)/cart/actions";
 import { Button } from "@/components/ui/button";
 import { FormMessage } from "@/components/ui/form-message";
-import { MAX_LINE_QUANTITY } from "@/lib/validations/cart";
+import { MAX_LINE_QUANTITY } from "@/lib/validations/cart-limits";
 
 /** Quantity and remove for one cart line; the server caps the quantity by stock and says so. */
 export function CartLineControls({ listingId, title, quantity, stock }: { listingId: string; title: string; quantity: number; stock: number }) {

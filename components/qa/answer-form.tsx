@@ -5,7 +5,7 @@ import { Button } from "@/components/ui/button";
 import { TextArea } from "@/components/ui/field";
 import { FormMessage } from "@/components/ui/form-message";
 import { PhotoUploader, type PhotoValue } from "@/components/uploads/photo-uploader";
-import { MAX_POST_PHOTOS, POST_BODY_MAX } from "@/lib/validations/qa";
+import { MAX_POST_PHOTOS, POST_BODY_MAX } from "@/lib/validations/qa-limits";
 import { fieldError, MARKDOWN_HINT, type QaFormAction } from "./form-helpers";
 
 export function AnswerForm({ action }: { action: QaFormAction }) {

@@ -6,7 +6,7 @@ import { SelectField, TextArea, TextField } from "@/components/ui/field";
 import { FormMessage } from "@/components/ui/form-message";
 import { PhotoUploader, type PhotoValue } from "@/components/uploads/photo-uploader";
 import type { FormResult } from "@/lib/validations/auth";
-import { MAX_POST_PHOTOS, POST_BODY_MAX, QUESTION_TITLE_MAX } from "@/lib/validations/qa";
+import { MAX_POST_PHOTOS, POST_BODY_MAX, QUESTION_TITLE_MAX } from "@/lib/validations/qa-limits";
 import { fieldError, MARKDOWN_HINT, type QaFormAction } from "./form-helpers";
 
 export type AskQuestionFormProps = {
