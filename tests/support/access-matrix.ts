@@ -122,7 +122,7 @@ export const PAGES: PageEntry[] = [
   { kind: "page", file: "app/(account)/sign-in/check-email/page.tsx", path: "/sign-in/check-email", expect: all("ok") },
   { kind: "page", file: "app/(account)/sign-in/problem/page.tsx", path: "/sign-in/problem", expect: all("ok") },
   // bench
-  { kind: "page", file: "app/(bench)/bench/page.tsx", path: "/bench", expect: members("ok", signIn) },
+  { kind: "page", file: "app/(bench)/bench/(desk)/page.tsx", path: "/bench", expect: members("ok", signIn) },
   {
     kind: "page",
     file: "app/(bench)/bench/logs/[id]/page.tsx",

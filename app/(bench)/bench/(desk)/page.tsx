@@ -8,7 +8,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { Panel } from "@/components/ui/panel";
 import { kitChoicesFor, listLogs } from "@/db/queries/bench";
 import { checkAccess } from "@/lib/auth/guard";
-import { createLogAction } from "./actions";
+import { createLogAction } from "../actions";
 
 export const metadata: Metadata = { title: "My bench" };
 export const dynamic = "force-dynamic";
