@@ -9,7 +9,7 @@ import { Button } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import { ErrorState } from "@/components/ui/error-state";
 import { SelectField, TextField } from "@/components/ui/field";
-import { catalogSearchString, effectiveSort, lenientCatalogQuery, type CatalogQuery, type CatalogSort } from "@/lib/validations/catalog";
+import { catalogSearchString, effectiveSort, type CatalogQuery, type CatalogSort } from "@/lib/validations/catalog-query";
 import { CatalogFilters, hasFilters, type CatalogSeller, type FilterPatch } from "./catalog-filters";
 import { CatalogPagination } from "./catalog-pagination";
 import { fetchCatalog } from "./fetch-catalog";
@@ -42,16 +42,11 @@ export function CatalogBrowser({ initialQuery, initialResult, sellers }: Catalog
   const pathname = usePathname();
   const router = useRouter();
   const urlSearch = useSearchParams().toString();
+  // The server page parses the URL (lib/validations/catalog.ts) and renders again for each new one,
+  // so its query is the URL's; the schema never has to come to the browser.
   const initialSearch = catalogSearchString(initialQuery);
-  const queryInUrl = () => lenientCatalogQuery(new URLSearchParams(urlSearch)).query;
-
-  // Normally the URL and the server's query agree. Going back to this page can restore the
-  // server's earlier render under a later URL; then the URL is the truth.
-  const [query, setQuery] = useState<CatalogQuery>(() => {
-    const fromUrl = queryInUrl();
-    return catalogSearchString(fromUrl) === initialSearch ? initialQuery : fromUrl;
-  });
-  const [text, setText] = useState(query.q ?? "");
+  const [query, setQuery] = useState<CatalogQuery>(initialQuery);
+  const [text, setText] = useState(initialQuery.q ?? "");
   const resultsRef = useRef<HTMLHeadingElement>(null);
 
   const settledText = useDebouncedValue(text, TYPING_PAUSE_MS);
@@ -78,10 +73,29 @@ export function CatalogBrowser({ initialQuery, initialResult, sellers }: Catalog
     router.replace(search ? `${pathname}?${search}` : pathname, { scroll: false });
   }, [search, pathname, router]);
 
-  // A URL we did not ask for (a link to /catalog?kind=kit, the header's Catalog link) is a new search.
+  // Going back to this page can restore the server's earlier render under a later URL; then the
+  // URL is the truth. Rare, so the parser is loaded only when the URL is not the render's.
   useEffect(() => {
-    const next = queryInUrl();
-    const canonical = catalogSearchString(next);
+    if (urlSearch === initialSearch) return;
+    let current = true;
+    void import("@/lib/validations/catalog").then(({ lenientCatalogQuery }) => {
+      const fromUrl = lenientCatalogQuery(new URLSearchParams(urlSearch)).query;
+      if (!current || catalogSearchString(fromUrl) === initialSearch) return;
+      setQuery(fromUrl);
+      setText(fromUrl.q ?? "");
+    });
+    return () => {
+      current = false;
+    };
+    // Once, for the URL the page was restored under.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, []);
+
+  // A URL we did not ask for (a link to /catalog?kind=kit, the header's Catalog link) is a new
+  // search; the server has rendered it, parsed, as the new initial query.
+  useEffect(() => {
+    const next = initialQuery;
+    const canonical = initialSearch;
     const ours = requested.current.indexOf(canonical);
     if (ours >= 0) {
       requested.current.splice(0, ours + 1);
@@ -90,9 +104,9 @@ export function CatalogBrowser({ initialQuery, initialResult, sellers }: Catalog
     if (canonical === search) return;
     setQuery(next);
     setText(next.q ?? "");
-    // Only a change of URL is news; the query moving on is not.
+    // Only a new render for another URL is news; the query moving on is not.
     // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [urlSearch]);
+  }, [initialSearch]);
 
   const update = (patch: FilterPatch) => setQuery((prev) => ({ ...prev, ...patch, page: undefined }));
   const clearFilters = () => setQuery((prev) => ({ q: prev.q, sort: prev.sort }));

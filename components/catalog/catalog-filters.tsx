@@ -3,7 +3,7 @@
 import { useEffect, useState } from "react";
 import { CheckboxField, SelectField, TextField } from "@/components/ui/field";
 import { Button } from "@/components/ui/button";
-import { CATALOG_KINDS, CATALOG_SUBTYPES, majorToMinor, minorToMajor, type CatalogQuery } from "@/lib/validations/catalog";
+import { CATALOG_KINDS, CATALOG_SUBTYPES, majorToMinor, minorToMajor, type CatalogQuery } from "@/lib/validations/catalog-query";
 import { useDebouncedValue } from "./use-debounced-value";
 
 export type CatalogSeller = { slug: string; shopName: string };
