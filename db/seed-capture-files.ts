@@ -7,6 +7,7 @@
 // A pulse is a trapezoid: a linear rise over `riseS` from the low to the high level, high, a linear
 // fall over `fallS`, low until the next period; the ramps are placed so the 50 % crossings are the
 // duty cycle apart, which is how IEEE Std 181 defines pulse duration. Noise is Gaussian.
+import { seededRandom } from "@/lib/random/seeded";
 import { writeFileSync } from "node:fs";
 import path from "node:path";
 
@@ -25,21 +26,10 @@ type PulseRecord = {
   gates: Gate[];
 };
 
-/** mulberry32 (a small public-domain 32-bit generator), uniform in [0, 1). */
-function uniform(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /** Standard normal samples by the Box–Muller transform (one of each pair is enough here). */
 function gaussian(seed: number): () => number {
-  const next = uniform(seed);
+  const next = seededRandom(seed);
   return () => Math.sqrt(-2 * Math.log(Math.max(next(), Number.EPSILON))) * Math.cos(2 * Math.PI * next());
 }
 

@@ -8,6 +8,8 @@
 // the ramp (see `transitionDuration1090`). Noise is Gaussian from a seeded generator, so every
 // run gives the same samples.
 
+import { seededRandom } from "@/lib/random/seeded";
+
 export type PulseTrainSpec = {
   sampleRateHz: number;
   /** how many samples; or give `durationS` */
@@ -36,17 +38,8 @@ export type PulseTrainSpec = {
 
 export type SyntheticTrace = { timeS: Float64Array; values: Float64Array };
 
-/** mulberry32: a small 32-bit PRNG (T. Ettinger's public-domain generator), uniform in [0, 1). */
-export function seededRandom(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+/** The shared seeded generator (lib/random/seeded.ts), for the tests that import it from here. */
+export { seededRandom };
 
 /** Standard normal samples by the Box–Muller transform over a seeded uniform source. */
 export function seededGaussian(seed: number): () => number {
