@@ -7,6 +7,7 @@ import { fieldErrorsFromZod, type FieldErrors } from "@/lib/http/json";
 import type { SafetyFinding } from "@/lib/policy";
 import { approveListingSchema, holdListingSchema, restoreListingSchema, sendBackListingSchema } from "@/lib/validations/moderation";
 import { isUuid } from "./ids";
+import { revalidateListingPages } from "@/lib/listings/listing-pages";
 
 // The one path from a moderator's request (form or JSON) to a listing's state change. Server actions
 // and route handlers both call moderateListing after their own session guard; transitionListing then
@@ -43,6 +44,8 @@ export async function moderateListing(user: SessionUser, listingId: string, acti
       ...(data.reasons ? { reasons: data.reasons } : {}),
       ...(data.reason !== undefined ? { note: data.reason } : data.note !== undefined ? { note: data.note } : {}),
     });
+    // Its own cached page first: a held listing is not offered for sale from the next request on.
+    await revalidateListingPages([listingId]);
     return { ok: true, ...result };
   } catch (error) {
     if (error instanceof TransitionError) {

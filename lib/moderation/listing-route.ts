@@ -2,7 +2,6 @@ import "server-only";
 import { guardRoute } from "@/lib/auth/guard";
 import { jsonError } from "@/lib/http/json";
 import { readOptionalJson } from "@/lib/http/json";
-import { revalidateListingPages } from "@/lib/listings/listing-pages";
 import { moderateListing, outcomeResponse, type ModeratorAction } from "./listing-actions";
 
 /** POST /api/moderation/listings/[id]/<action>: 401/403 from the session guard, then 404/409/422 from the transition. */
@@ -12,9 +11,7 @@ export function listingActionRoute(action: ModeratorAction) {
     const read = await readOptionalJson(request);
     if (!read.ok) return read.response;
     try {
-      const outcome = await moderateListing(user, id, action, read.body);
-      if (outcome.ok) await revalidateListingPages([id]);
-      return outcomeResponse(outcome);
+      return outcomeResponse(await moderateListing(user, id, action, read.body));
     } catch (error) {
       console.error(`[moderation/${action}]`, error);
       return jsonError(500, "internal_error", "Something went wrong on our side. Please try again.");

@@ -12,6 +12,7 @@ import { mailAnswerToAsker, mailRemovalToAuthor } from "./notify";
 import { invalid, QaError, runQa, type QaOutcome } from "./outcome";
 import { countOpenFlags, isPostKind, lockPost, setPostState } from "./post-rows";
 import { canSeePost, shouldHide } from "./rules";
+import { revalidatePostListingPage } from "@/lib/listings/listing-pages";
 
 // The moderator's three decisions on a post and the members' flags. Each runs in one transaction
 // with the post's row locked: the state change, the flags it resolves, the audit entry and the
@@ -64,6 +65,8 @@ export async function moderatePost(user: SessionUser, kind: string, id: string, 
     });
   });
   if (outcome.ok) await dispatchMail(mailIds);
+  // The listing's Q&A panel lists its visible questions with their visible answers.
+  if (outcome.ok) await revalidatePostListingPage("question", outcome.questionId);
   return outcome;
 }
 
@@ -74,7 +77,7 @@ export type Flagged = { openFlags: number; hidden: boolean };
  * the post in the same transaction, recorded in the audit log as the platform's own action.
  */
 export async function flagPost(user: SessionUser, kind: string, id: string, body: unknown): Promise<QaOutcome<Flagged>> {
-  return runQa(async () => {
+  const outcome = await runQa(async () => {
     if (!isPostKind(kind)) throw new QaError(404, "No such post.");
     const parsed = flagPostSchema.safeParse(body ?? {});
     if (!parsed.success) throw invalid(parsed.error);
@@ -109,4 +112,6 @@ export async function flagPost(user: SessionUser, kind: string, id: string, body
       return { openFlags, hidden };
     });
   });
+  if (outcome.ok && outcome.hidden) await revalidatePostListingPage(kind, id);
+  return outcome;
 }

@@ -13,6 +13,7 @@ import { postingLimit, postingRefusal } from "./limits";
 import { mailAnswerToAsker } from "./notify";
 import { invalid, QaError, runQa, type QaOutcome } from "./outcome";
 import { canSeePost, initialPostState, type PostKind } from "./rules";
+import { revalidatePostListingPage } from "@/lib/listings/listing-pages";
 
 // Asking and answering. Each post is one transaction: the member's posting budget, the checks on
 // what it links (listing, log, photos), whether it waits for a moderator, the post and its photos,
@@ -38,7 +39,7 @@ async function newPostState(tx: Tx, user: SessionUser) {
 }
 
 export async function askQuestion(user: SessionUser, body: unknown): Promise<QaOutcome<Posted>> {
-  return runQa(async () => {
+  const outcome = await runQa(async () => {
     const parsed = askQuestionSchema.safeParse(body ?? {});
     if (!parsed.success) throw invalid(parsed.error);
     const input = parsed.data;
@@ -60,6 +61,8 @@ export async function askQuestion(user: SessionUser, body: unknown): Promise<QaO
       return { id: row.id, questionId: row.id, state };
     });
   });
+  if (outcome.ok && outcome.state === "visible") await revalidatePostListingPage("question", outcome.id);
+  return outcome;
 }
 
 export async function answerQuestion(user: SessionUser, questionId: string, body: unknown): Promise<QaOutcome<Posted>> {
@@ -87,5 +90,7 @@ export async function answerQuestion(user: SessionUser, questionId: string, body
     });
   });
   if (outcome.ok) await dispatchMail(mailIds);
+  // A visible answer shows in the listing's Q&A panel at once (its cached page is refreshed).
+  if (outcome.ok && outcome.state === "visible") await revalidatePostListingPage("question", questionId);
   return outcome;
 }

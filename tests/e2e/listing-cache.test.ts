@@ -121,6 +121,27 @@ describe("listing pages from the cache", () => {
     expect(live.html).toContain('data-testid="add-to-cart"');
   });
 
+  it("a question about the listing shows in its Q&A panel once visible, and goes when a moderator removes it", async () => {
+    const title = `Does the ${run} kit ship with its bleeder resistors fitted?`;
+    expect((await listingPage()).html).not.toContain(title);
+    // A session of its own: the header test before this one signs the member out.
+    const asker = randomBytes(32).toString("hex");
+    await pool.query("insert into sessions (session_token, user_id, expires) values ($1, $2, now() + interval '1 day')", [asker, member.id]);
+    const asked = await call("POST", "/api/questions", asker, { title, bodyMd: "The bus capacitors should drain on their own once it is unplugged.", listingId });
+    expect(asked.status).toBe(201);
+    const question = (await asked.json()) as { id: string; state: string };
+    // A member without enough approved posts waits for a moderator; either way the page follows.
+    if (question.state === "pending") {
+      expect((await listingPage()).html).not.toContain(title);
+      expect((await call("POST", `/api/posts/question/${question.id}/approve`, tokens.moderator, {})).status).toBe(200);
+    }
+    expect((await listingPage()).html).toContain(title);
+    const removed = await call("POST", `/api/posts/question/${question.id}/remove`, tokens.moderator, { reason: "Asked again below, with the photos." });
+    expect(removed.status).toBe(200);
+    expect((await listingPage()).html).not.toContain(title);
+    await pool.query("delete from sessions where session_token = $1", [asker]);
+  });
+
   it("a hold from the moderator's review page (the server action) takes it off sale at once", async () => {
     expect(stateOf((await listingPage()).html)).toBe("live");
     const s = await openBrowser();

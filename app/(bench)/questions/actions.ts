@@ -2,7 +2,6 @@
 
 import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
-import { revalidatePostListingPage } from "@/lib/listings/listing-pages";
 import { failedForm, formText, isRefusal, memberOrRefusal } from "@/lib/qa/form-result";
 import { askQuestion } from "@/lib/qa/posting";
 import type { FormResult } from "@/lib/validations/auth";
@@ -17,6 +16,5 @@ export async function askQuestionAction(_previous: FormResult | null, formData: 
   if (!outcome.ok) return failedForm(outcome, values);
   revalidatePath("/questions");
   revalidatePath("/moderate/posts");
-  if (outcome.state === "visible") await revalidatePostListingPage("question", outcome.id);
   redirect(`/questions/${outcome.id}?posted=${outcome.state}`);
 }

@@ -3,7 +3,6 @@ import { getSessionUser } from "@/lib/auth/guard";
 import { jsonError } from "@/lib/http/json";
 import { askQuestion } from "@/lib/qa/posting";
 import { qaPostRoute } from "@/lib/qa/respond";
-import { revalidatePostListingPage } from "@/lib/listings/listing-pages";
 import { questionFiltersSchema } from "@/lib/validations/qa";
 
 export const dynamic = "force-dynamic";
@@ -23,12 +22,4 @@ export async function GET(request: Request): Promise<Response> {
 }
 
 /** POST /api/questions { title, bodyMd, listingId?, logId?, photos? } → 201 { id, state } (state "pending" while it waits for a moderator). */
-export const POST = qaPostRoute(
-  "ask",
-  async (user, _params, body) => {
-    const outcome = await askQuestion(user, body);
-    if (outcome.ok && outcome.state === "visible") await revalidatePostListingPage("question", outcome.id);
-    return outcome;
-  },
-  { successStatus: 201 },
-);
+export const POST = qaPostRoute("ask", (user, _params, body) => askQuestion(user, body), { successStatus: 201 });

@@ -2,7 +2,6 @@
 
 import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
-import { revalidatePostListingPage } from "@/lib/listings/listing-pages";
 import { failedForm, formText, isRefusal, memberOrRefusal } from "@/lib/qa/form-result";
 import { flagPost } from "@/lib/qa/moderation";
 import { answerQuestion } from "@/lib/qa/posting";
@@ -26,8 +25,6 @@ export async function answerAction(questionId: string, _previous: FormResult | n
   if (!outcome.ok) return failedForm(outcome, values);
   refresh(questionId);
   revalidatePath("/moderate/posts");
-  // The listing's Q&A panel counts the visible answers.
-  if (outcome.state === "visible") await revalidatePostListingPage("question", questionId);
   redirect(`/questions/${questionId}?answered=${outcome.state}#answer-${outcome.id}`);
 }
 
@@ -39,7 +36,6 @@ export async function flagAction(kind: "question" | "answer", postId: string, qu
   if (!outcome.ok) return failedForm(outcome, values);
   refresh(questionId);
   revalidatePath("/moderate/posts");
-  if (outcome.hidden) await revalidatePostListingPage(kind, postId);
   // A post hidden by this flag disappears for the flagger, so the thanks goes on the page, not on the post.
   if (kind === "question" && outcome.hidden) redirect("/questions?flagged=hidden");
   redirect(`/questions/${questionId}?flagged=${outcome.hidden ? "hidden" : "open"}${kind === "answer" && !outcome.hidden ? `#answer-${postId}` : ""}`);

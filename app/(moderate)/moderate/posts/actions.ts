@@ -1,7 +1,6 @@
 "use server";
 
 import { revalidatePath } from "next/cache";
-import { revalidatePostListingPage } from "@/lib/listings/listing-pages";
 import { failedForm, formText, isRefusal, memberOrRefusal } from "@/lib/qa/form-result";
 import { moderatePost } from "@/lib/qa/moderation";
 import type { PostAction } from "@/lib/qa/moderation-rules";
@@ -18,8 +17,6 @@ async function decide(kind: string, id: string, action: PostAction, body: Record
   revalidatePath("/moderate/posts");
   revalidatePath("/questions");
   revalidatePath(`/questions/${outcome.questionId}`);
-  // The listing's Q&A panel lists its visible questions with their visible answers.
-  await revalidatePostListingPage("question", outcome.questionId);
   const words = { approve: "Approved: it is visible now.", remove: "Removed; the author has been e-mailed the reason.", restore: "Restored: it is visible again and its flags are resolved." };
   return { ok: true, message: words[action] };
 }

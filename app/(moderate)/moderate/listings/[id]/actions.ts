@@ -3,7 +3,6 @@
 import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
 import { AccessDeniedError, requireUser } from "@/lib/auth/guard";
-import { revalidateListingPages } from "@/lib/listings/listing-pages";
 import { moderateListing, type ModeratorAction } from "@/lib/moderation/listing-actions";
 import type { FormResult } from "@/lib/validations/auth";
 import { reasonsFromForm } from "@/lib/validations/moderation";
@@ -29,8 +28,6 @@ async function decide(listingId: string, action: ModeratorAction, body: unknown,
   if (!outcome.ok) return { ok: false, message: outcome.message, fieldErrors: outcome.fieldErrors ?? {}, values };
   revalidatePath("/moderate");
   revalidatePath(`/moderate/listings/${listingId}`);
-  // Its own page first: a held listing is not offered for sale from the next request on.
-  await revalidateListingPages([listingId]);
   // Approve, hold and restore change what the catalog shows.
   if (action !== "send_back") revalidatePath("/", "layout");
   redirect(`/moderate/listings/${listingId}?done=${action}`);

@@ -1,18 +1,9 @@
 import { moderatePost } from "@/lib/qa/moderation";
 import { qaPostRoute } from "@/lib/qa/respond";
-import { revalidatePostListingPage } from "@/lib/listings/listing-pages";
 
 export const dynamic = "force-dynamic";
 
 /** POST /api/posts/[kind]/[id]/approve (kind: question | answer), moderators only. */
-export const POST = qaPostRoute<{ kind: string; id: string }>(
-  "approve",
-  async (user, { kind, id }, body) => {
-    const outcome = await moderatePost(user, kind, id, "approve", body);
-    if (outcome.ok) await revalidatePostListingPage("question", outcome.questionId);
-    return outcome;
-  },
-  {
-    roles: ["moderator"],
-  },
-);
+export const POST = qaPostRoute<{ kind: string; id: string }>("approve", (user, { kind, id }, body) => moderatePost(user, kind, id, "approve", body), {
+  roles: ["moderator"],
+});
