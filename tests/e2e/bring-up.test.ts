@@ -101,6 +101,8 @@ describe("bring-up log in Chromium", () => {
     const gate = page.locator('[data-testid=checkpoint][data-checkpoint-name="Gate-drive frequency"]');
     expect(await gate.getByTestId("expected-range").textContent()).toBe("38–42 kHz");
     await gate.getByText("Record a reading").click();
+    // The form is rendered when its drawer first opens (components/bench/deferred-details.tsx).
+    await gate.getByLabel("Unit", { exact: true }).waitFor();
     expect(await gate.getByLabel("Unit", { exact: true }).locator("option").allTextContents()).toEqual(["Hz", "kHz", "MHz"]);
     await gate.getByRole("textbox", { name: "Reading", exact: true }).fill("41000");
     await gate.getByLabel("Unit", { exact: true }).selectOption("Hz");
