@@ -87,10 +87,12 @@ describe("listing pages from the cache", () => {
       await s.page.goto(`/listings/${slug}`);
       expect(await s.page.getByTestId("signed-in-as").textContent()).toBe(member.name);
       await s.page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "My bench" }).waitFor();
-      expect(await s.page.getByRole("link", { name: "Sign in" }).count()).toBe(0);
-      // Signing out forgets the person in the header at once, and on the server.
+      const account = s.page.getByTestId("account-controls");
+      expect(await account.getByRole("link", { name: "Sign in" }).count()).toBe(0);
+      // Signing out forgets the person in the header at once, and on the server. The header's own
+      // link is the one to wait for: the home page it lands on has sign-in links of its own.
       await s.page.getByRole("button", { name: "Sign out" }).click();
-      await s.page.getByRole("link", { name: "Sign in" }).waitFor();
+      await account.getByRole("link", { name: "Sign in" }).waitFor();
       await s.page.waitForURL(`${BASE_URL}/`);
       expect(await (await s.page.request.get("/api/session")).json()).toEqual({ user: null });
     } finally {
