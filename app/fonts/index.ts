@@ -11,7 +11,11 @@ import localFont from "next/font/local";
 // face whose unicode-range misses a character without downloading it, so latin-only pages
 // fetch only the latin files. next/font/local options must be literals.
 
-/** Public Sans (latin, upright and italic), exposed as `--font-sans`. */
+/**
+ * Public Sans (latin, upright and italic), exposed as `--font-sans`. Preloaded: without it the text
+ * painted in the fallback shifts when the face arrives (Lighthouse measured a layout shift of
+ * 0.05–0.25 on mobile).
+ */
 export const sans = localFont({
   src: [
     { path: "./public-sans-latin-wght-normal.woff2", style: "normal" },
@@ -49,12 +53,16 @@ export const sansLatinExt = localFont({
   ],
 });
 
-/** JetBrains Mono (latin) for figures and units, exposed as `--font-mono`. */
+/**
+ * JetBrains Mono (latin) for figures and units, exposed as `--font-mono`. Not preloaded: figures are
+ * a small part of a first screen, and a 40 kB preload shares a slow line with the page's scripts.
+ */
 export const mono = localFont({
   src: "./jetbrains-mono-latin-wght-normal.woff2",
   weight: "100 900",
   style: "normal",
   display: "swap",
+  preload: false,
   variable: "--font-mono",
   declarations: [
     {

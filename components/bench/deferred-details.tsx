@@ -17,7 +17,8 @@ export type DeferredDetailsProps = {
 /**
  * A closed <details> around a client form. A bring-up log has one reading form and one attach form
  * per checkpoint, almost all closed; hydrating them all is most of the page's main-thread work on a
- * phone (Lighthouse's Total Blocking Time). The body is rendered when first opened instead.
+ * phone (Lighthouse's Total Blocking Time). The body is rendered when first opened instead; the
+ * forms need JavaScript to submit anyway, and without it the drawer says so.
  */
 export function DeferredDetails({ summary, lead, children, className, summaryClassName, bodyClassName, testId }: DeferredDetailsProps) {
   const ref = useRef<HTMLDetailsElement>(null);
@@ -31,7 +32,14 @@ export function DeferredDetails({ summary, lead, children, className, summaryCla
       <summary className={summaryClassName}>{summary}</summary>
       <div className={bodyClassName}>
         {lead}
-        {opened ? children : null}
+        {opened ? (
+          children
+        ) : (
+          // Without JavaScript the body never renders; say so rather than open an empty drawer.
+          <noscript>
+            <p className="text-sm text-graphite-600">This form needs JavaScript. Turn it on in your browser to use it.</p>
+          </noscript>
+        )}
       </div>
     </details>
   );

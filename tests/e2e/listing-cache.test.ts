@@ -1,5 +1,6 @@
 import { randomBytes } from "node:crypto";
 import pg from "pg";
+import Stripe from "stripe";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { DEMO_ACCOUNTS } from "../../db/seed-data";
 import { connectFixtures, ensureSellerProfile, insertListing, type FixtureDb } from "../integration/moderation/fixtures";
@@ -9,6 +10,7 @@ import { BASE_URL, openBrowser } from "./support/browser";
 // same for everyone, the header learns who is signed in from GET /api/session after load, and a
 // change made through the app (a moderator's hold, a stock edit) shows on the very next request.
 const SESSION_COOKIE = "authjs.session-token";
+const PAYMENTS_URL = process.env.E2E_PAYMENTS_URL ?? "http://127.0.0.1:4120";
 const member = DEMO_ACCOUNTS.find((a) => a.id === "demo-builder")!;
 const run = Date.now().toString(36);
 
@@ -142,6 +144,39 @@ describe("listing pages from the cache", () => {
     expect(removed.status).toBe(200);
     expect((await listingPage()).html).not.toContain(title);
     await pool.query("delete from sessions where session_token = $1", [asker]);
+  });
+
+  it("a seller cancelling a paid order puts its stock back on the listing page at once", async () => {
+    // A listing of its own with a paid order for one unit, written into the tables beside a payment
+    // made in the payments fake, so that the cancel's refund goes through.
+    const otherId = await insertListing(fixtures.db, { sellerId: "demo-seller-kits", title: `Cancelled order kit ${run}`, state: "live" });
+    const otherSlug = (await pool.query<{ slug: string }>("select slug from listings where id = $1", [otherId])).rows[0]!.slug;
+    const { hostname, port } = new URL(PAYMENTS_URL);
+    const stripe = new Stripe("sk_test_local_fake_key", { host: hostname, port: Number(port), protocol: "http", maxNetworkRetries: 0 });
+    const intent = await stripe.paymentIntents.create({ amount: 14_900, currency: "eur", confirm: true, payment_method: "pm_card_visa", allowed_payment_method_types: ["card"] });
+    const checkout = await pool.query<{ id: string }>(
+      `insert into checkouts (buyer_id, email, currency, total_minor, fee_bps, status, payment_intent_id, expires_at, paid_at)
+       values ($1, $2, 'EUR', 14900, 800, 'paid', $3, now() + interval '1 hour', now()) returning id`,
+      [member.id, member.email, intent.id],
+    );
+    const order = await pool.query<{ id: string }>(
+      `insert into orders (number, checkout_id, buyer_id, seller_id, state, currency, subtotal_minor, fee_minor, seller_share_minor, paid_at)
+       values ($1, $2, $3, 'demo-seller-kits', 'paid', 'EUR', 14900, 1192, 13708, now()) returning id`,
+      [`FY-C-${run.toUpperCase()}`, checkout.rows[0]!.id, member.id],
+    );
+    await pool.query("insert into order_lines (order_id, listing_id, title, unit_price_minor, quantity, sheet_revision) values ($1, $2, $3, 14900, 1, 1)", [
+      order.rows[0]!.id,
+      otherId,
+      `Cancelled order kit ${run}`,
+    ]);
+    const page = async () => (await fetch(`${BASE_URL}/listings/${otherSlug}`)).text();
+    expect(await page()).toContain("4 in stock");
+    expect(await page()).toContain("4 in stock");
+
+    const cancelled = await call("POST", `/api/orders/${order.rows[0]!.id}/cancel`, tokens.seller, {});
+    expect(cancelled.status).toBe(200);
+    expect((await pool.query("select state from orders where id = $1", [order.rows[0]!.id])).rows[0]).toEqual({ state: "cancelled" });
+    expect(await page()).toContain("5 in stock");
   });
 
   it("a hold from the moderator's review page (the server action) takes it off sale at once", async () => {

@@ -1,10 +1,10 @@
 "use server";
 
 import { revalidatePath } from "next/cache";
-import { acceptReturn, cancelOrder, declineReturn, markDelivered, refundCurrencyFor, refundLine, shipOrder, type RefundOutcome } from "@/db/queries/orders";
+import { acceptReturn, declineReturn, markDelivered, refundCurrencyFor, refundLine, shipOrder, type RefundOutcome } from "@/db/queries/orders";
 import { requireUser } from "@/lib/auth/guard";
-import { revalidateOrderListingPages } from "@/lib/listings/listing-pages";
 import { formatMoney } from "@/lib/format/money";
+import { cancelOrderAndRefresh } from "@/lib/orders/cancel";
 import { errorFormResult, zodFormResult } from "@/lib/orders/form-result";
 import type { FormResult } from "@/lib/validations/auth";
 import { declineReturnSchema, lineRefundSchema, shipOrderSchema } from "@/lib/validations/orders";
@@ -55,14 +55,13 @@ export async function cancelOrderAction(orderId: string, currency: string): Prom
   let result: FormResult;
   try {
     const user = await requireUser(["seller"]);
-    const cancelled = await cancelOrder({ orderId, actorId: user.id });
+    const cancelled = await cancelOrderAndRefresh({ orderId, actorId: user.id });
     const money = refundSummary(cancelled.refunds, currency);
     result = { ok: true, message: `Order cancelled and its stock put back. ${money.message ?? ""}`.trim() };
   } catch (error) {
     return errorFormResult(error, "cancel");
   }
   revalidateOrder(orderId);
-  await revalidateOrderListingPages(orderId);
   return result;
 }
 
