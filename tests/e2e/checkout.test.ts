@@ -3,14 +3,14 @@
 // `FLUXYARD_TEST_SLOT=4 npm test -- --e2e-only tests/e2e/checkout.test.ts`.
 import { randomUUID } from "node:crypto";
 import pg from "pg";
-import Stripe from "stripe";
+import type Stripe from "stripe";
 import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it } from "vitest";
 import { openBrowser, screenshot, type Session } from "./support/browser";
 import { waitForMessage } from "./support/outbox";
 import { signInThroughOutbox } from "./support/sign-in";
+import { fakePaymentsClient, PAYMENTS_URL } from "./support/payments";
 
 const DATABASE_URL = process.env.E2E_DATABASE_URL ?? "";
-const PAYMENTS_URL = process.env.E2E_PAYMENTS_URL ?? "http://127.0.0.1:4120";
 const KITS_SELLER = { id: "demo-seller-kits", email: "bram.kits@larkspur.test" };
 const COILS_SELLER = { id: "demo-seller-magnetics", email: "idunn.winds@larkspur.test" };
 
@@ -70,8 +70,7 @@ async function stockOf(id: string): Promise<number> {
 
 beforeAll(async () => {
   pool = new pg.Pool({ connectionString: DATABASE_URL, max: 2 });
-  const { hostname, port } = new URL(PAYMENTS_URL);
-  stripe = new Stripe("sk_test_local_fake_key", { host: hostname, port: Number(port), protocol: "http", maxNetworkRetries: 0 });
+  stripe = fakePaymentsClient();
   await sellerReady(KITS_SELLER, "Yard Kitworks");
   await sellerReady(COILS_SELLER, "Larkspur Coil Room");
   const insert = `insert into listings (id, seller_id, kind, magnetic_subtype, title, slug, description_md, price_minor, currency, stock, declaration, safety_notes, sheet_revision, state, policy_revision, policy_status, live_at)

@@ -1,16 +1,15 @@
 import { randomBytes } from "node:crypto";
 import pg from "pg";
-import Stripe from "stripe";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { DEMO_ACCOUNTS } from "../../db/seed-data";
 import { connectFixtures, ensureSellerProfile, insertListing, type FixtureDb } from "../integration/moderation/fixtures";
 import { BASE_URL, openBrowser } from "./support/browser";
+import { fakePaymentsClient } from "./support/payments";
 
 // Listing pages are served from Next's cache (app/(shop)/listings/[slug]/page.tsx): the HTML is the
 // same for everyone, the header learns who is signed in from GET /api/session after load, and a
 // change made through the app (a moderator's hold, a stock edit) shows on the very next request.
 const SESSION_COOKIE = "authjs.session-token";
-const PAYMENTS_URL = process.env.E2E_PAYMENTS_URL ?? "http://127.0.0.1:4120";
 const member = DEMO_ACCOUNTS.find((a) => a.id === "demo-builder")!;
 const run = Date.now().toString(36);
 
@@ -42,8 +41,8 @@ afterAll(async () => {
 
 const cookie = (token: string) => ({ cookie: `${SESSION_COOKIE}=${token}` });
 
-async function listingPage(headers: Record<string, string> = {}): Promise<{ html: string; cache: string | null }> {
-  const res = await fetch(`${BASE_URL}/listings/${slug}`, { headers });
+async function listingPage(headers: Record<string, string> = {}, ofSlug = slug): Promise<{ html: string; cache: string | null }> {
+  const res = await fetch(`${BASE_URL}/listings/${ofSlug}`, { headers });
   expect(res.status).toBe(200);
   return { html: await res.text(), cache: res.headers.get("x-nextjs-cache") };
 }
@@ -151,8 +150,7 @@ describe("listing pages from the cache", () => {
     // made in the payments fake, so that the cancel's refund goes through.
     const otherId = await insertListing(fixtures.db, { sellerId: "demo-seller-kits", title: `Cancelled order kit ${run}`, state: "live" });
     const otherSlug = (await pool.query<{ slug: string }>("select slug from listings where id = $1", [otherId])).rows[0]!.slug;
-    const { hostname, port } = new URL(PAYMENTS_URL);
-    const stripe = new Stripe("sk_test_local_fake_key", { host: hostname, port: Number(port), protocol: "http", maxNetworkRetries: 0 });
+    const stripe = fakePaymentsClient();
     const intent = await stripe.paymentIntents.create({ amount: 14_900, currency: "eur", confirm: true, payment_method: "pm_card_visa", allowed_payment_method_types: ["card"] });
     const checkout = await pool.query<{ id: string }>(
       `insert into checkouts (buyer_id, email, currency, total_minor, fee_bps, status, payment_intent_id, expires_at, paid_at)
@@ -169,14 +167,14 @@ describe("listing pages from the cache", () => {
       otherId,
       `Cancelled order kit ${run}`,
     ]);
-    const page = async () => (await fetch(`${BASE_URL}/listings/${otherSlug}`)).text();
-    expect(await page()).toContain("4 in stock");
-    expect(await page()).toContain("4 in stock");
+    const page = () => listingPage({}, otherSlug);
+    expect((await page()).html).toContain("4 in stock");
+    expect((await page()).cache).toBe("HIT");
 
     const cancelled = await call("POST", `/api/orders/${order.rows[0]!.id}/cancel`, tokens.seller, {});
     expect(cancelled.status).toBe(200);
     expect((await pool.query("select state from orders where id = $1", [order.rows[0]!.id])).rows[0]).toEqual({ state: "cancelled" });
-    expect(await page()).toContain("5 in stock");
+    expect((await page()).html).toContain("5 in stock");
   });
 
   it("a hold from the moderator's review page (the server action) takes it off sale at once", async () => {

@@ -2,13 +2,14 @@ import { randomBytes } from "node:crypto";
 import { eq } from "drizzle-orm";
 import { drizzle } from "drizzle-orm/node-postgres";
 import pg from "pg";
-import Stripe from "stripe";
+import type Stripe from "stripe";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import * as schema from "../../db/schema";
 import { DEMO_ACCOUNTS } from "../../db/seed-data";
 import { openBrowser, screenshot, type Session } from "./support/browser";
 import { messagesTo, type OutboxMessage } from "./support/outbox";
 import { signInThroughOutbox } from "./support/sign-in";
+import { fakePaymentsClient, PAYMENTS_URL } from "./support/payments";
 
 // After the sale, in Chromium: a paid order from the demo seller of kits to the demo builder is put in
 // the database as the checkout's webhook would leave it (with a real paid intent and transfer in the
@@ -17,7 +18,6 @@ import { signInThroughOutbox } from "./support/sign-in";
 const seller = DEMO_ACCOUNTS.find((a) => a.id === "demo-seller-kits")!;
 const buyer = DEMO_ACCOUNTS.find((a) => a.id === "demo-builder")!;
 const DATABASE_URL = process.env.E2E_DATABASE_URL!;
-const PAYMENTS_URL = process.env.E2E_PAYMENTS_URL ?? "http://127.0.0.1:4120";
 
 let pool: pg.Pool;
 let stripe: Stripe;
@@ -109,8 +109,7 @@ describe("orders after the sale in Chromium", () => {
 
   beforeAll(async () => {
     pool = new pg.Pool({ connectionString: DATABASE_URL, max: 2 });
-    const { hostname, port } = new URL(PAYMENTS_URL);
-    stripe = new Stripe("sk_test_local_fake_key", { host: hostname, port: Number(port), protocol: "http", maxNetworkRetries: 0 });
+    stripe = fakePaymentsClient();
     order = await insertPaidOrder();
     sellerSession = await openBrowser();
     buyerSession = await openBrowser();

@@ -3,14 +3,14 @@
 // `FLUXYARD_TEST_SLOT=9 npm test -- --e2e-only tests/e2e/reviews.test.ts`.
 import { randomUUID } from "node:crypto";
 import pg from "pg";
-import Stripe from "stripe";
+import type Stripe from "stripe";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { openBrowser, screenshot, type Session } from "./support/browser";
 import { firstLink, waitForMessage } from "./support/outbox";
 import { signInThroughOutbox } from "./support/sign-in";
+import { fakePaymentsClient, PAYMENTS_URL } from "./support/payments";
 
 const DATABASE_URL = process.env.E2E_DATABASE_URL ?? "";
-const PAYMENTS_URL = process.env.E2E_PAYMENTS_URL ?? "http://127.0.0.1:4120";
 const BUILDER = { id: "demo-builder", email: "noor.builds@larkspur.test" };
 const REVIEWER = { id: "demo-reviewer", email: "tamsin.reviews@larkspur.test", name: "Tamsin Achterberg" };
 const DEMO_KIT_ID = "0b7d1c3e-5a21-4c6e-9f10-000000000001";
@@ -34,8 +34,7 @@ const READINGS: { checkpoint: string; value: number; unit: string; verdict: "wit
 
 beforeAll(async () => {
   pool = new pg.Pool({ connectionString: DATABASE_URL, max: 2 });
-  const { hostname, port } = new URL(PAYMENTS_URL);
-  stripe = new Stripe("sk_test_local_fake_key", { host: hostname, port: Number(port), protocol: "http", maxNetworkRetries: 0 });
+  stripe = fakePaymentsClient();
 
   const account = await stripe.accounts.create({ type: "express", country: "DE", email: REVIEWER.email, capabilities: { transfers: { requested: true } } });
   const onboarded = await fetch(`${PAYMENTS_URL}/api/test/complete-onboarding`, { method: "POST", headers: { "Content-Type": "application/json" }, body: JSON.stringify({ account: account.id }) });
