@@ -1,8 +1,8 @@
 import localFont from "next/font/local";
 
-// Files copied from @fontsource-variable/public-sans and /jetbrains-mono 5.3.0 (SIL OFL 1.1,
-// licence texts beside them). Shipped with the app: the site must render offline and never
-// call a font host.
+// Files made from @fontsource-variable/public-sans and /jetbrains-mono 5.3.0 by `npm run fonts`
+// (./subset.ts: every character and weight, fewer layout features; SIL OFL 1.1, licence texts
+// beside them). Shipped with the app: the site must render offline and never call a font host.
 //
 // Each subset is its own next/font/local call so that it can carry the unicode-range that
 // fontsource publishes for it. Each call is its own font family (Turbopack ignores a shared
@@ -34,7 +34,7 @@ export const sans = localFont({
 /**
  * Public Sans (latin, italic), exposed as `--font-sans-italic` and used by italic elements only
  * (globals.css). A family of its own so that it is not preloaded: few first screens have italic
- * text, and on a slow line a 29 kB preload shares the bandwidth with the page's scripts. A family
+ * text, and on a slow line a 26 kB preload shares the bandwidth with the page's scripts. A family
  * with only an italic face must never come first in the stack of upright text, or the browser
  * would set upright text in it.
  */
@@ -78,7 +78,7 @@ export const sansLatinExt = localFont({
 
 /**
  * JetBrains Mono (latin) for figures and units, exposed as `--font-mono`. Not preloaded: figures are
- * a small part of a first screen, and a 40 kB preload shares a slow line with the page's scripts.
+ * a small part of a first screen, and a 21 kB preload shares a slow line with the page's scripts.
  */
 export const mono = localFont({
   src: "./jetbrains-mono-latin-wght-normal.woff2",

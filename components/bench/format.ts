@@ -1,4 +1,5 @@
 import { formatSi } from "@/components/ui/format";
+import { formatUtcDay, formatUtcDayTime } from "@/lib/format/plain";
 
 // Readings are shown in the checkpoint's own unit, as the kit's sheet writes them: no prefix rescaling.
 
@@ -12,13 +13,12 @@ export function formatRange(min: number, max: number, unit: string): string {
   return `${formatSi(min, "", 5, { prefixes: false })}–${formatReading(max, unit)}`;
 }
 
-const dateTime = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
-const date = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeZone: "UTC" });
+// Dates as en-GB's medium style writes them in UTC, without Intl (see lib/format/plain.ts).
 
 export function formatTakenAt(at: Date): string {
-  return `${dateTime.format(at)} UTC`;
+  return `${formatUtcDayTime(at)} UTC`;
 }
 
 export function formatDay(at: Date): string {
-  return date.format(at);
+  return formatUtcDay(at);
 }

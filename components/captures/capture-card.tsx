@@ -1,6 +1,7 @@
 "use client";
 
 import { useQueryClient } from "@tanstack/react-query";
+import { groupThousands } from "@/lib/format/plain";
 import { useRouter } from "next/navigation";
 import { useEffect, useRef, useState, useTransition } from "react";
 import { formatReading } from "@/components/bench/format";
@@ -100,7 +101,7 @@ export function CaptureCard({ initial, viewerHref, confirm, remove, refreshWhenD
           {status.sampleCount !== null && status.startTimeS !== null && status.endTimeS !== null ? (
             <span className="text-graphite-600">
               {" "}
-              · <span className="figure font-mono">{status.sampleCount.toLocaleString("en-GB")}</span> samples over{" "}
+              · <span className="figure font-mono">{groupThousands(status.sampleCount)}</span> samples over{" "}
               <span className="figure font-mono">{formatTime(status.endTimeS - status.startTimeS, 3)}</span>
             </span>
           ) : null}

@@ -1,6 +1,7 @@
 "use client";
 
 import { keepPreviousData, useQuery } from "@tanstack/react-query";
+import { groupThousands } from "@/lib/format/plain";
 import { useCallback, useEffect, useId, useMemo, useRef, useState, type KeyboardEvent, type PointerEvent } from "react";
 import { useDebouncedValue } from "@/components/catalog/use-debounced-value";
 import { Button } from "@/components/ui/button";
@@ -362,9 +363,9 @@ export function CaptureViewer({
         <span className="figure font-mono">{formatTime(bounds.from)}</span>–<span className="figure font-mono">{formatTime(bounds.to)}</span>
         {" · "}
         <span className="figure font-mono" data-testid="capture-samples-in-window">
-          {data.samplesInWindow.toLocaleString("en-GB")}
+          {groupThousands(data.samplesInWindow)}
         </span>{" "}
-        of <span className="figure font-mono">{sampleCount.toLocaleString("en-GB")}</span> samples in this window
+        of <span className="figure font-mono">{groupThousands(sampleCount)}</span> samples in this window
         {query.isError ? <span className="text-signal-700"> · {(query.error as Error).message}</span> : null}
       </p>
       <p id={helpId} className="text-xs text-graphite-600">

@@ -2,10 +2,10 @@
 
 import { Button } from "@/components/ui/button";
 import { cx } from "@/components/ui/cx";
+import { formatTakenAt } from "@/components/bench/format";
 import type { CapturePinView } from "@/lib/captures/types";
 import { formatTime } from "./format";
 
-const when = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
 
 /** The reviewers' comments pinned to the trace, in time order; each can be shown on the plot. */
 export function PinList({
@@ -40,7 +40,7 @@ export function PinList({
             </span>
             <span className="text-graphite-600">{pin.channel === null ? "all channels" : channelName(pin.channel)}</span>
             <span className="text-graphite-600">
-              {pin.authorName} · {when.format(new Date(pin.createdAt))} UTC
+              {pin.authorName} · {formatTakenAt(new Date(pin.createdAt))}
             </span>
             <Button variant="quiet" size="sm" className="ml-auto" onClick={() => onShow(pin)} aria-label={`Show pin ${i + 1} on the trace`}>
               Show on the trace

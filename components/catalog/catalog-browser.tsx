@@ -1,6 +1,7 @@
 "use client";
 
 import { keepPreviousData, useQuery } from "@tanstack/react-query";
+import { groupThousands } from "@/lib/format/plain";
 import { usePathname, useRouter, useSearchParams } from "next/navigation";
 import { useEffect, useRef, useState, type FormEvent } from "react";
 import type { CatalogResult } from "@/db/queries/catalog";
@@ -217,8 +218,8 @@ export function CatalogBrowser({ initialQuery, initialResult, sellers }: Catalog
         {data.totalCapped ? (
           <p className="text-sm text-graphite-700" data-testid="catalog-depth-note">
             {query.q
-              ? `A search sorts the ${CATALOG_DEPTH.toLocaleString("en")} newest listings that match. Add words or filters to narrow it.`
-              : `Pages go as far as the first ${CATALOG_DEPTH.toLocaleString("en")} listings. Filters narrow the list.`}
+              ? `A search sorts the ${groupThousands(CATALOG_DEPTH)} newest listings that match. Add words or filters to narrow it.`
+              : `Pages go as far as the first ${groupThousands(CATALOG_DEPTH)} listings. Filters narrow the list.`}
           </p>
         ) : null}
         <CatalogPagination page={data.page} pages={pages} hrefFor={hrefFor} onPage={goToPage} />

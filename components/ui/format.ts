@@ -1,3 +1,5 @@
+import { formatSignificant } from "@/lib/format/plain";
+
 // SI prefixes from pico to tera (SI Brochure, 9th ed., table 7); centi, deci, deca and hecto are
 // left out because engineering notation steps in powers of 1000.
 const PREFIXES: Record<number, string> = {
@@ -22,17 +24,9 @@ const MINUS = "−";
 
 export type FormatSiOptions = { prefixes?: boolean };
 
-const formatters = new Map<number, Intl.NumberFormat>();
-
-// Figures use "." and no grouping whatever the page's locale, as datasheets do.
-function plain(value: number, digits: number): string {
-  let format = formatters.get(digits);
-  if (!format) {
-    format = new Intl.NumberFormat("en", { maximumSignificantDigits: digits, useGrouping: false });
-    formatters.set(digits, format);
-  }
-  return format.format(value);
-}
+// Figures use "." and no grouping whatever the page's locale, as datasheets do. Not Intl, which
+// would cost the page its ICU load while it hydrates (lib/format/plain.ts).
+const plain = formatSignificant;
 
 /**
  * A value and its unit with an engineering SI prefix and `digits` significant digits, trailing
@@ -50,7 +44,7 @@ export function formatSi(value: number, unit: string, digits = 3, options: Forma
 
   let exp = Math.min(MAX_EXP, Math.max(MIN_EXP, Math.floor(Math.log10(abs) / 3) * 3));
   // Rounding can carry into the next prefix (999.7 → "1000"), and log10 can land a hair off.
-  if (Number((abs / 10 ** exp).toPrecision(digits)) >= 1000 && exp < MAX_EXP) exp += 3;
+  if (Number(plain(abs / 10 ** exp, digits)) >= 1000 && exp < MAX_EXP) exp += 3;
   const mantissa = abs / 10 ** exp;
   return spaced(sign + plain(mantissa, digits), PREFIXES[exp] ?? "");
 }

@@ -62,12 +62,12 @@ const METRICS = ["first-contentful-paint", "largest-contentful-paint", "total-bl
 const ATTEMPTS = 3;
 
 /** One Lighthouse run; a run that failed to record (NO_NAVSTART and the like, on a busy machine) is tried again. */
-async function audit(port: number, url: string, cookie: string | null, desktop: boolean): Promise<Result> {
+async function audit(port: number, url: string, cookie: string | null, desktop: boolean): Promise<{ lhr: Result; trace: unknown }> {
   const flags: Flags = { port, output: "json", logLevel: "error", onlyCategories: [...CATEGORIES], ...(cookie ? { extraHeaders: { Cookie: cookie } } : {}) };
   let problem = "";
   for (let attempt = 1; attempt <= ATTEMPTS; attempt++) {
     const result = await lighthouse(url, flags, desktop ? desktopConfig : undefined);
-    if (result && !result.lhr.runtimeError) return result.lhr;
+    if (result && !result.lhr.runtimeError) return { lhr: result.lhr, trace: result.artifacts.Trace };
     problem = result?.lhr.runtimeError ? `${result.lhr.runtimeError.code}: ${result.lhr.runtimeError.message}` : "no result";
     log(`Lighthouse could not record ${url} (${problem}); attempt ${attempt} of ${ATTEMPTS}`);
   }
@@ -77,12 +77,15 @@ async function audit(port: number, url: string, cookie: string | null, desktop: 
 async function auditPage(port: number, baseUrl: string, page: BenchPage, reportDir: string): Promise<PageScores> {
   const url = `${baseUrl}${page.path}`;
   const header = page.cookie ? `${page.cookie.name}=${page.cookie.value}` : null;
-  const mobileRuns: Result[] = [];
-  for (let k = 0; k < MOBILE_RUNS; k++) mobileRuns.push(await audit(port, url, header, false));
-  mobileRuns.sort((a, b) => score(a, "performance") - score(b, "performance"));
+  const runs: { lhr: Result; trace: unknown }[] = [];
+  for (let k = 0; k < MOBILE_RUNS; k++) runs.push(await audit(port, url, header, false));
+  runs.sort((a, b) => score(a.lhr, "performance") - score(b.lhr, "performance"));
+  const mobileRuns = runs.map((r) => r.lhr);
   const median = mobileRuns[Math.floor(mobileRuns.length / 2)]!;
-  const desktop = await audit(port, url, header, true);
+  const { lhr: desktop } = await audit(port, url, header, true);
   writeFileSync(path.join(reportDir, `${page.name}-mobile.json`), JSON.stringify(median));
+  // BENCH_TRACES=1 keeps the median run's trace too, for a browser's performance panel.
+  if (process.env.BENCH_TRACES === "1") writeFileSync(path.join(reportDir, `${page.name}-mobile.trace.json`), JSON.stringify(runs[Math.floor(runs.length / 2)]!.trace));
   writeFileSync(path.join(reportDir, `${page.name}-desktop.json`), JSON.stringify(desktop));
   const scores = (lhr: Result) => Object.fromEntries(CATEGORIES.map((c) => [c, score(lhr, c)])) as Scores;
   const mobile = scores(median);

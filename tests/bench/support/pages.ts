@@ -58,7 +58,12 @@ export async function preparePages(pool: pg.Pool, appEnv: Record<string, string>
     });
     if (capture) pages.push({ name: "capture-viewer", path: `/bench/captures/${capture.id}`, cookie: await signIn(pool, capture.ownerId) });
   }
-  return { pages, skipped };
+  // BENCH_PAGES=home,listing narrows a run to those pages (for trying a change); a full run takes all.
+  const only = process.env.BENCH_PAGES?.split(",").map((n) => n.trim()).filter(Boolean);
+  if (!only?.length) return { pages, skipped };
+  const unknown = only.filter((n) => !pages.some((p) => p.name === n));
+  if (unknown.length) throw new Error(`BENCH_PAGES names ${unknown.join(", ")}; the pages are ${pages.map((p) => p.name).join(", ")}`);
+  return { pages: pages.filter((p) => only.includes(p.name)), skipped: [...skipped, `all but ${only.join(", ")} (BENCH_PAGES)`] };
 }
 
 /** The first measured capture in the database, else one made on the member's log through the app's capture code. */
