@@ -1,7 +1,6 @@
 "use client";
 
 import { useQueryClient } from "@tanstack/react-query";
-import { groupThousands } from "@/lib/format/plain";
 import { useRouter } from "next/navigation";
 import { useEffect, useRef, useState, useTransition } from "react";
 import { formatReading } from "@/components/bench/format";
@@ -13,6 +12,7 @@ import { StateBadge } from "@/components/ui/state-badge";
 import type { CaptureActionResult } from "@/lib/captures/action-schemas";
 import { figureRow, figureValue, withPulseWidth, type FigureKey } from "@/lib/captures/figures";
 import type { CaptureStatusView } from "@/lib/captures/types";
+import { groupThousands } from "@/lib/format/plain";
 import { CAPTURE_STATE_WORDS, formatFigure, formatFileSize, formatTime } from "./format";
 import { ProposalForm } from "./proposal-form";
 import { captureStatusKey, useCaptureStatus } from "./use-capture-status";

@@ -1,13 +1,13 @@
 "use client";
 
 import { keepPreviousData, useQuery } from "@tanstack/react-query";
-import { groupThousands } from "@/lib/format/plain";
 import { useCallback, useEffect, useId, useMemo, useRef, useState, type KeyboardEvent, type PointerEvent } from "react";
 import { useDebouncedValue } from "@/components/catalog/use-debounced-value";
 import { Button } from "@/components/ui/button";
 import { cx } from "@/components/ui/cx";
 import type { CaptureChannelView, CapturePinView, CaptureWindowView } from "@/lib/captures/types";
 import { DEFAULT_POINTS, windowUrl } from "@/lib/captures/window-url";
+import { groupThousands } from "@/lib/format/plain";
 import { formatLevel, formatTime } from "./format";
 import { CHANNEL_SWATCHES, MARGIN, PLOT_WIDTH, TracePlot, plotLeft, plotRight, type AxisGroup, type PlotTrace } from "./trace-plot";
 import { centreOn, minimumSpan, nearestIndex, panBy, rangeSpan, sameSpan, valueDomain, zoomAround, type Span } from "./viewer-math";

@@ -1,11 +1,10 @@
 "use client";
 
+import { formatTakenAt } from "@/components/bench/format";
 import { Button } from "@/components/ui/button";
 import { cx } from "@/components/ui/cx";
-import { formatTakenAt } from "@/components/bench/format";
 import type { CapturePinView } from "@/lib/captures/types";
 import { formatTime } from "./format";
-
 
 /** The reviewers' comments pinned to the trace, in time order; each can be shown on the plot. */
 export function PinList({

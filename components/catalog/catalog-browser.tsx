@@ -1,10 +1,10 @@
 "use client";
 
 import { keepPreviousData, useQuery } from "@tanstack/react-query";
-import { groupThousands } from "@/lib/format/plain";
 import { usePathname, useRouter, useSearchParams } from "next/navigation";
 import { useEffect, useRef, useState, type FormEvent } from "react";
 import type { CatalogResult } from "@/db/queries/catalog";
+import { groupThousands } from "@/lib/format/plain";
 import { CATALOG_DEPTH, catalogCountText } from "@/lib/listings/catalog-limits";
 import { Button } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";

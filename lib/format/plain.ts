@@ -1,7 +1,8 @@
 // Number and date text that client components print while a page hydrates, without Intl.
 //
 // A browser loads its ICU data the first time a page touches Intl: about 20 ms of main thread on
-// a laptop, 80 ms on a phone-class CPU, inside the long task that hydrates the page. These
+// the project's 2-core test machine, 80 ms at Lighthouse's 4× mobile slowdown, inside the long
+// task that hydrates the page. These
 // functions give the same text as the Intl calls they stand for (the unit tests compare them with
 // Intl over many values), and server and browser both use them, so hydration always matches.
 
