@@ -1,7 +1,7 @@
 "use client";
 
 import Link from "next/link";
-import { useQuery, useQueryClient } from "@tanstack/react-query";
+import { useSyncExternalStore } from "react";
 import { signOutAction } from "@/app/(account)/sign-in/actions";
 import { cx } from "@/components/ui/cx";
 import { areaLinksFor, type HeaderSession, type NavLink } from "./nav-links";
@@ -9,8 +9,22 @@ import { areaLinksFor, type HeaderSession, type NavLink } from "./nav-links";
 // The header's per-person part. The layout is rendered once for everyone (the pages are cached), so
 // who is signed in is fetched after load. Until then, and without JavaScript, it shows a visitor's
 // header: the Sign in link, and no area links.
+//
+// One fetch per tab, kept in this module and asked again when the tab comes back into view. Not
+// React Query: the header is on every page, and most first screens (home, a listing, checkout)
+// need nothing else from it, so they do without its 12 kB (components/query-provider.tsx).
 
-const SESSION_KEY = ["header-session"] as const;
+type SessionState = { status: "pending" | "ready" | "error"; session: HeaderSession | null };
+
+const PENDING: SessionState = { status: "pending", session: null };
+let state: SessionState = PENDING;
+let inFlight: Promise<void> | null = null;
+const listeners = new Set<() => void>();
+
+function publish(next: SessionState) {
+  state = next;
+  for (const listener of listeners) listener();
+}
 
 async function fetchSession(): Promise<HeaderSession> {
   const res = await fetch("/api/session", { cache: "no-store", credentials: "same-origin" });
@@ -18,8 +32,40 @@ async function fetchSession(): Promise<HeaderSession> {
   return (await res.json()) as HeaderSession;
 }
 
-function useHeaderSession() {
-  return useQuery({ queryKey: SESSION_KEY, queryFn: fetchSession, refetchOnWindowFocus: true });
+/** Asks once at a time; a failed ask keeps what was known (a visitor's header if nothing was). */
+function refresh(): Promise<void> {
+  inFlight ??= fetchSession()
+    .then(
+      (session) => publish({ status: "ready", session }),
+      (error: unknown) => {
+        console.warn("[header] could not read the session:", error);
+        publish(state.session ? { status: "ready", session: state.session } : { status: "error", session: null });
+      },
+    )
+    .finally(() => {
+      inFlight = null;
+    });
+  return inFlight;
+}
+
+function onVisible() {
+  if (document.visibilityState === "visible") void refresh();
+}
+
+function subscribe(listener: () => void): () => void {
+  listeners.add(listener);
+  if (listeners.size === 1) {
+    if (state.status === "pending") void refresh();
+    document.addEventListener("visibilitychange", onVisible);
+  }
+  return () => {
+    listeners.delete(listener);
+    if (listeners.size === 0) document.removeEventListener("visibilitychange", onVisible);
+  };
+}
+
+function useHeaderSession(): SessionState {
+  return useSyncExternalStore(subscribe, () => state, () => PENDING);
 }
 
 export function HeaderLink({ link }: { link: NavLink }) {
@@ -32,8 +78,8 @@ export function HeaderLink({ link }: { link: NavLink }) {
 
 /** The links to the areas the signed-in person may enter, after the public ones. */
 export function AreaLinks() {
-  const { data } = useHeaderSession();
-  return areaLinksFor(data?.user ?? null).map((link) => <HeaderLink key={link.href} link={link} />);
+  const { session } = useHeaderSession();
+  return areaLinksFor(session?.user ?? null).map((link) => <HeaderLink key={link.href} link={link} />);
 }
 
 /**
@@ -41,9 +87,8 @@ export function AreaLinks() {
  * fetch moves nothing else in the header.
  */
 export function AccountControls({ className }: { className?: string }) {
-  const { data, status } = useHeaderSession();
-  const queryClient = useQueryClient();
-  const user = data?.user ?? null;
+  const { session, status } = useHeaderSession();
+  const user = session?.user ?? null;
   return (
     <div
       className={cx("flex h-8 min-w-0 items-center justify-end gap-3 text-sm", className)}
@@ -56,7 +101,7 @@ export function AccountControls({ className }: { className?: string }) {
             {user.label}
           </Link>
           {/* The action signs out and redirects; the header forgets the person at once. */}
-          <form action={signOutAction} onSubmit={() => queryClient.setQueryData<HeaderSession>(SESSION_KEY, { user: null })}>
+          <form action={signOutAction} onSubmit={() => publish({ status: "ready", session: { user: null } })}>
             <button type="submit" className="h-8 shrink-0 rounded border border-graphite-600 px-3 text-graphite-100 hover:border-graphite-400 hover:text-white">
               Sign out
             </button>

@@ -1,4 +1,5 @@
 import { CatalogBrowser } from "@/components/catalog/catalog-browser";
+import { QueryProvider } from "@/components/query-provider";
 import { Alert } from "@/components/ui/alert";
 import { listCatalogSellers, searchListings } from "@/db/queries/catalog";
 import type { CatalogQuery } from "@/lib/validations/catalog";
@@ -13,7 +14,9 @@ export async function CatalogResults({ query, ignoredMessages }: { query: Catalo
           Those filters were left out: {ignoredMessages.join(" ")}
         </Alert>
       ) : null}
-      <CatalogBrowser initialQuery={query} initialResult={result} sellers={sellers} />
+      <QueryProvider>
+        <CatalogBrowser initialQuery={query} initialResult={result} sellers={sellers} />
+      </QueryProvider>
     </>
   );
 }

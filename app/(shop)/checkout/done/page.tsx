@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { AccessDenied } from "@/components/access/access-denied";
 import { PaymentStatus } from "@/components/checkout/payment-status";
+import { QueryProvider } from "@/components/query-provider";
 import { Alert } from "@/components/ui/alert";
 import { ButtonLink } from "@/components/ui/button";
 import { PageHeader } from "@/components/ui/page-header";
@@ -21,7 +22,9 @@ export default async function CheckoutDonePage({ searchParams }: { searchParams:
     <section className="max-w-reading space-y-6" data-testid="checkout-done">
       <PageHeader title="Your payment" />
       {checkout ? (
-        <PaymentStatus sessionId={parsed.data!.session} initial={checkout} />
+        <QueryProvider>
+          <PaymentStatus sessionId={parsed.data!.session} initial={checkout} />
+        </QueryProvider>
       ) : (
         <>
           <Alert tone="caution" title="No such checkout">
