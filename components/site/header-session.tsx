@@ -19,9 +19,12 @@ type SessionState = { status: "pending" | "ready" | "error"; session: HeaderSess
 const PENDING: SessionState = { status: "pending", session: null };
 let state: SessionState = PENDING;
 let inFlight: Promise<void> | null = null;
+// Bumped by every publish, so an answer that was asked for before a sign-out cannot undo it.
+let generation = 0;
 const listeners = new Set<() => void>();
 
 function publish(next: SessionState) {
+  generation += 1;
   state = next;
   for (const listener of listeners) listener();
 }
@@ -34,12 +37,15 @@ async function fetchSession(): Promise<HeaderSession> {
 
 /** Asks once at a time; a failed ask keeps what was known (a visitor's header if nothing was). */
 function refresh(): Promise<void> {
+  const askedAt = generation;
   inFlight ??= fetchSession()
     .then(
-      (session) => publish({ status: "ready", session }),
+      (session) => {
+        if (generation === askedAt) publish({ status: "ready", session });
+      },
       (error: unknown) => {
         console.warn("[header] could not read the session:", error);
-        publish(state.session ? { status: "ready", session: state.session } : { status: "error", session: null });
+        if (generation === askedAt && state.status === "pending") publish({ status: "error", session: null });
       },
     )
     .finally(() => {
