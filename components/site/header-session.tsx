@@ -4,74 +4,19 @@ import Link from "next/link";
 import { useSyncExternalStore } from "react";
 import { signOutAction } from "@/app/(account)/sign-in/actions";
 import { cx } from "@/components/ui/cx";
-import { areaLinksFor, type HeaderSession, type NavLink } from "./nav-links";
+import { areaLinksFor, type NavLink } from "./nav-links";
+import { forgetSession, readSession, sessionBeforeLoad, subscribeToSession, type SessionState } from "./session-store";
 
 // The header's per-person part. The layout is rendered once for everyone (the pages are cached), so
 // who is signed in is fetched after load. Until then, and without JavaScript, it shows a visitor's
 // header: the Sign in link, and no area links.
 //
-// One fetch per tab, kept in this module and asked again when the tab comes back into view. Not
-// React Query: the header is on every page, and most first screens (home, a listing, checkout)
-// need nothing else from it, so they do without its 12 kB (components/query-provider.tsx).
-
-type SessionState = { status: "pending" | "ready" | "error"; session: HeaderSession | null };
-
-const PENDING: SessionState = { status: "pending", session: null };
-let state: SessionState = PENDING;
-let inFlight: Promise<void> | null = null;
-// Bumped by every publish, so an answer that was asked for before a sign-out cannot undo it.
-let generation = 0;
-const listeners = new Set<() => void>();
-
-function publish(next: SessionState) {
-  generation += 1;
-  state = next;
-  for (const listener of listeners) listener();
-}
-
-async function fetchSession(): Promise<HeaderSession> {
-  const res = await fetch("/api/session", { cache: "no-store", credentials: "same-origin" });
-  if (!res.ok) throw new Error(`GET /api/session answered ${res.status}`);
-  return (await res.json()) as HeaderSession;
-}
-
-/** Asks once at a time; a failed ask keeps what was known (a visitor's header if nothing was). */
-function refresh(): Promise<void> {
-  const askedAt = generation;
-  inFlight ??= fetchSession()
-    .then(
-      (session) => {
-        if (generation === askedAt) publish({ status: "ready", session });
-      },
-      (error: unknown) => {
-        console.warn("[header] could not read the session:", error);
-        if (generation === askedAt && state.status === "pending") publish({ status: "error", session: null });
-      },
-    )
-    .finally(() => {
-      inFlight = null;
-    });
-  return inFlight;
-}
-
-function onVisible() {
-  if (document.visibilityState === "visible") void refresh();
-}
-
-function subscribe(listener: () => void): () => void {
-  listeners.add(listener);
-  if (listeners.size === 1) {
-    if (state.status === "pending") void refresh();
-    document.addEventListener("visibilitychange", onVisible);
-  }
-  return () => {
-    listeners.delete(listener);
-    if (listeners.size === 0) document.removeEventListener("visibilitychange", onVisible);
-  };
-}
+// Who is signed in comes from ./session-store.ts. Not React Query: the header is on every page, and
+// most first screens (home, a listing, checkout) need nothing else from it, so they do without its
+// 12 kB (components/query-provider.tsx).
 
 function useHeaderSession(): SessionState {
-  return useSyncExternalStore(subscribe, () => state, () => PENDING);
+  return useSyncExternalStore(subscribeToSession, readSession, sessionBeforeLoad);
 }
 
 export function HeaderLink({ link }: { link: NavLink }) {
@@ -107,7 +52,7 @@ export function AccountControls({ className }: { className?: string }) {
             {user.label}
           </Link>
           {/* The action signs out and redirects; the header forgets the person at once. */}
-          <form action={signOutAction} onSubmit={() => publish({ status: "ready", session: { user: null } })}>
+          <form action={signOutAction} onSubmit={forgetSession}>
             <button type="submit" className="h-8 shrink-0 rounded border border-graphite-600 px-3 text-graphite-100 hover:border-graphite-400 hover:text-white">
               Sign out
             </button>

@@ -80,12 +80,12 @@ async function auditPage(port: number, baseUrl: string, page: BenchPage, reportD
   const runs: { lhr: Result; trace: unknown }[] = [];
   for (let k = 0; k < MOBILE_RUNS; k++) runs.push(await audit(port, url, header, false));
   runs.sort((a, b) => score(a.lhr, "performance") - score(b.lhr, "performance"));
-  const mobileRuns = runs.map((r) => r.lhr);
-  const median = mobileRuns[Math.floor(mobileRuns.length / 2)]!;
+  const medianRun = runs[Math.floor(runs.length / 2)]!;
+  const median = medianRun.lhr;
   const { lhr: desktop } = await audit(port, url, header, true);
   writeFileSync(path.join(reportDir, `${page.name}-mobile.json`), JSON.stringify(median));
   // BENCH_TRACES=1 keeps the median run's trace too, for a browser's performance panel.
-  if (process.env.BENCH_TRACES === "1") writeFileSync(path.join(reportDir, `${page.name}-mobile.trace.json`), JSON.stringify(runs[Math.floor(runs.length / 2)]!.trace));
+  if (process.env.BENCH_TRACES === "1") writeFileSync(path.join(reportDir, `${page.name}-mobile.trace.json`), JSON.stringify(medianRun.trace));
   writeFileSync(path.join(reportDir, `${page.name}-desktop.json`), JSON.stringify(desktop));
   const scores = (lhr: Result) => Object.fromEntries(CATEGORIES.map((c) => [c, score(lhr, c)])) as Scores;
   const mobile = scores(median);
@@ -94,7 +94,7 @@ async function auditPage(port: number, baseUrl: string, page: BenchPage, reportD
     path: page.path,
     mobile: {
       ...mobile,
-      runs: mobileRuns.map((r) => score(r, "performance")),
+      runs: runs.map((r) => score(r.lhr, "performance")),
       metrics: Object.fromEntries(METRICS.map((m) => [m, median.audits[m]?.displayValue ?? "?"])),
       benchmarkIndex: median.environment?.benchmarkIndex ?? null,
       warnings: median.runWarnings.map(String),
