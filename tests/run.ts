@@ -26,7 +26,7 @@ const artifacts = path.join(root, "tests", slot > 0 ? `.artifacts-slot${slot}` :
 const log = (line: string) => console.log(`[test] ${line}`);
 const TEMPLATE = "fluxyard_template";
 
-type Counts = { passed: number; failed: number; skipped: number };
+type Counts = { passed: number; failed: number; skipped: number; failures?: string[] };
 
 async function main(): Promise<number> {
   const started = Date.now();
@@ -107,10 +107,13 @@ function add(total: Counts, part: Counts) {
   total.passed += part.passed;
   total.failed += part.failed;
   total.skipped += part.skipped;
+  if (part.failures?.length) total.failures = [...(total.failures ?? []), ...part.failures];
 }
 
 function finish(counts: Counts, started: number): number {
   log(`finished in ${Math.round((Date.now() - started) / 1000)} s`);
+  // The failures again, so that the last lines of a long log say what broke.
+  for (const failure of counts.failures ?? []) console.log(`[test] FAILED ${failure}`);
   console.log(`${counts.passed} passed, ${counts.failed} failed${counts.skipped ? `, ${counts.skipped} skipped` : ""}`);
   return counts.failed > 0 || counts.passed === 0 ? 1 : 0;
 }
@@ -122,9 +125,31 @@ async function runVitest(projects: string[], extraEnv: Record<string, string>, r
   const child = spawn(process.execPath, args, { cwd: root, stdio: "inherit", env: { ...process.env, ...extraEnv, NODE_ENV: "test" } });
   const code = await new Promise<number>((resolve) => child.on("exit", (c) => resolve(c ?? 1)));
   if (!existsSync(report)) return { passed: 0, failed: 1, skipped: 0 };
-  const json = JSON.parse(readFileSync(report, "utf8")) as { numPassedTests: number; numFailedTests: number; numPendingTests: number; numTodoTests: number; numFailedTestSuites: number };
+  const json = JSON.parse(readFileSync(report, "utf8")) as VitestReport;
   const failed = json.numFailedTests + (code !== 0 && json.numFailedTests === 0 ? Math.max(1, json.numFailedTestSuites) : 0);
-  return { passed: json.numPassedTests, failed, skipped: json.numPendingTests + json.numTodoTests };
+  return { passed: json.numPassedTests, failed, skipped: json.numPendingTests + json.numTodoTests, failures: failureLines(json) };
+}
+
+type VitestReport = {
+  numPassedTests: number;
+  numFailedTests: number;
+  numPendingTests: number;
+  numTodoTests: number;
+  numFailedTestSuites: number;
+  testResults?: { name: string; status: string; message?: string; assertionResults?: { fullName: string; status: string; failureMessages?: string[] }[] }[];
+};
+
+/** One line per failed test (file, name, the first line of its message), or per file that failed to load. */
+function failureLines(report: VitestReport): string[] {
+  const firstLine = (text: string | undefined) => (text ?? "").split("\n").find((l) => l.trim())?.trim().slice(0, 300) ?? "";
+  const lines: string[] = [];
+  for (const file of report.testResults ?? []) {
+    const where = path.relative(root, file.name);
+    const failedTests = (file.assertionResults ?? []).filter((a) => a.status === "failed");
+    for (const test of failedTests) lines.push(`${where} > ${test.fullName}: ${firstLine(test.failureMessages?.[0])}`);
+    if (file.status === "failed" && failedTests.length === 0) lines.push(`${where}: ${firstLine(file.message)}`);
+  }
+  return lines;
 }
 
 function ensureChromium() {
