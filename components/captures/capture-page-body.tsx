@@ -4,6 +4,7 @@ import { MainsCaution } from "@/components/caution";
 import { Panel } from "@/components/ui/panel";
 import type { CaptureDetail } from "@/db/queries/captures";
 import type { CaptureActionResult } from "@/lib/captures/action-schemas";
+import { packWindow } from "@/lib/captures/packed-window";
 import { probeCautionFor } from "@/lib/captures/probe-caution";
 import type { CapturePinView, CaptureStatusView, CaptureWindowView } from "@/lib/captures/types";
 import { CaptureCard } from "./capture-card";
@@ -74,7 +75,7 @@ export function CapturePageBody({ detail, status, initialWindow, pins, pin, conf
           bounds={{ from: status.startTimeS ?? 0, to: status.endTimeS ?? 0 }}
           sampleIntervalS={status.sampleIntervalS}
           sampleCount={status.sampleCount ?? 0}
-          initialWindow={initialWindow}
+          initialWindow={packWindow(initialWindow, status.sampleIntervalS)}
           focusChannel={focus}
           highlight={highlight}
           pins={pins}

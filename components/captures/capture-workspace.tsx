@@ -1,11 +1,12 @@
 "use client";
 
 import { useRouter } from "next/navigation";
-import { useState, type ReactNode } from "react";
+import { useMemo, useState, type ReactNode } from "react";
 import { formatSi } from "@/components/ui/format";
 import { Panel } from "@/components/ui/panel";
 import type { CaptureActionResult } from "@/lib/captures/action-schemas";
-import type { CaptureChannelView, CapturePinView, CaptureWindowView } from "@/lib/captures/types";
+import { unpackWindow, type PackedWindowView } from "@/lib/captures/packed-window";
+import type { CaptureChannelView, CapturePinView } from "@/lib/captures/types";
 import { CaptureViewer } from "./capture-viewer";
 import { FiguresTable } from "./figures-table";
 import { PinForm } from "./pin-form";
@@ -19,7 +20,8 @@ export type CaptureWorkspaceProps = {
   bounds: Span;
   sampleIntervalS: number | null;
   sampleCount: number;
-  initialWindow: CaptureWindowView;
+  /** the whole capture, packed for the page (lib/captures/packed-window.ts) */
+  initialWindow: PackedWindowView;
   focusChannel: number;
   highlight: { channel: number; figure: string } | null;
   /** null: this reader sees no pins (a visitor of a public log) */
@@ -37,6 +39,7 @@ export function CaptureWorkspace(props: CaptureWorkspaceProps) {
   const [draft, setDraft] = useState<number | null>(null);
   const [active, setActive] = useState<string | null>(null);
   const [showTime, setShowTime] = useState<{ timeS: number; nonce: number } | null>(null);
+  const initialWindow = useMemo(() => unpackWindow(props.initialWindow), [props.initialWindow]);
   const channelName = (index: number) => props.channels.find((c) => c.index === index)?.name ?? `Channel ${index + 1}`;
 
   const pick = (t: number) => {
@@ -55,7 +58,7 @@ export function CaptureWorkspace(props: CaptureWorkspaceProps) {
             bounds={props.bounds}
             sampleIntervalS={props.sampleIntervalS}
             sampleCount={props.sampleCount}
-            initialWindow={props.initialWindow}
+            initialWindow={initialWindow}
             pins={props.pins ?? []}
             focusChannel={props.focusChannel}
             onPickTime={props.pin ? pick : undefined}

@@ -2,13 +2,13 @@ import "server-only";
 import { readCaptureSamples, type CaptureDetail } from "@/db/queries/captures";
 import { downsampleForPlot } from "@/lib/engineering";
 import { windowRange } from "./blocks";
+import { time12 } from "./packed-window";
 import type { CaptureWindowView, WindowTrace } from "./types";
 import type { TimeSpan } from "./window-params";
 
 // Float32 samples printed as doubles carry digits they never had (15.000000953674316); seven
-// significant digits are what Float32 holds. Times keep twelve, enough to tell a million samples apart.
+// significant digits are what Float32 holds. Times keep twelve (./packed-window.ts).
 const value7 = (v: number) => Number(v.toPrecision(7));
-const time12 = (t: number) => Number(t.toPrecision(12));
 
 /**
  * A window of a measured capture, downsampled with LTTB to at most `points` per channel. Only the

@@ -1,5 +1,6 @@
 import fc from "fast-check";
 import { unit as mathUnit } from "mathjs";
+import { makeAbsolute, parseSVG } from "svg-path-parser";
 import { describe, expect, it } from "vitest";
 import {
   axisExponent,
@@ -153,14 +154,38 @@ describe("sampleEvenly and linePath", () => {
     expect(sampleEvenly([1, 2, 3], 12)).toEqual([1, 2, 3]);
   });
 
-  it("draws a move followed by line segments and skips non-finite points", () => {
+  it("draws a move followed by relative line segments and skips non-finite points", () => {
     expect(
       linePath([
         { x: 0, y: 1 },
-        { x: 1.006, y: 2 },
+        { x: 1.06, y: 2 },
         { x: Number.NaN, y: 3 },
-        { x: 3, y: 4 },
+        { x: 3, y: 0.5 },
+        { x: 3.5, y: 0.5 },
       ]),
-    ).toBe("M0 1 L1.01 2 L3 4");
+    ).toBe("M0 1l1.1 1 1.9-1.5 .5 0");
+    expect(linePath([{ x: 2, y: 3 }])).toBe("M2 3");
+    expect(linePath([])).toBe("");
+  });
+
+  it("reads back, through an independent SVG path parser, as the points snapped to 0.1 px (fast-check)", () => {
+    // svg-path-parser (npm) implements the SVG 1.1 path data grammar; makeAbsolute resolves the
+    // relative steps. Every point is where it was drawn to within the 0.05 px of the snap, however
+    // long the path: the steps are taken between snapped points, so rounding does not add up.
+    const point = fc.record({ x: fc.double({ min: -2000, max: 2000, noNaN: true }), y: fc.double({ min: -2000, max: 2000, noNaN: true }) });
+    fc.assert(
+      fc.property(fc.array(point, { minLength: 1, maxLength: 400 }), (points) => {
+        const commands = makeAbsolute(parseSVG(linePath(points)));
+        expect(commands).toHaveLength(points.length);
+        expect(commands[0]?.code).toBe("M");
+        commands.forEach((command, i) => {
+          if (i > 0) expect(command.code).toBe("L");
+          const drawn = command as { x: number; y: number };
+          expect(Math.abs(drawn.x - points[i]!.x)).toBeLessThanOrEqual(0.05 + 1e-9);
+          expect(Math.abs(drawn.y - points[i]!.y)).toBeLessThanOrEqual(0.05 + 1e-9);
+        });
+      }),
+      { numRuns: 300 },
+    );
   });
 });
