@@ -25,9 +25,10 @@ export function useCaptureStatus(initial: CaptureStatusView) {
     queryKey: captureStatusKey(initial.id),
     queryFn: () => fetchStatus(initial.id),
     initialData: initial,
-    // The page's render is the truth at load; poll from there rather than refetching at once.
+    // The page's render is the truth at load; poll from there rather than refetching at once (a
+    // staleTime of 0 made every card and proposal of a measured capture ask again while the page loaded).
     initialDataUpdatedAt: Date.now(),
-    staleTime: 0,
+    staleTime: POLL_MS,
     refetchInterval: (query) => {
       const state = query.state.data?.state;
       return state === "queued" || state === "measuring" ? POLL_MS : false;

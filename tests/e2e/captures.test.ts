@@ -185,6 +185,30 @@ describe("scope captures in Chromium", () => {
     await page.getByTestId("capture-plot-area").focus();
     await page.keyboard.press("Home");
     await expect.poll(() => page.getByTestId("capture-samples-in-window").textContent()).toBe("6,000");
+
+    // Opened afresh, the viewer asks nothing more of the capture while it loads: the page carries the
+    // whole trace (its times packed on the sample grid, lib/captures/packed-window.ts) and the measured
+    // state, which no poll asks for again.
+    const asked: string[] = [];
+    const onRequest = (r: { url(): string }) => {
+      if (r.url().includes(`/api/captures/${captureId}`)) asked.push(r.url());
+    };
+    page.on("request", onRequest);
+    await page.goto(viewerUrl);
+    await pointAtTrace(page, "reopened");
+    await page.waitForTimeout(1500);
+    page.off("request", onRequest);
+    expect(asked).toEqual([]);
+    // The trace drawn in the browser from the unpacked window is the one the server drew into the
+    // HTML: hide and show a channel so that React draws its path again, and compare.
+    const html = await (await page.request.get(viewerUrl)).text();
+    const served = /<path d="([^"]+)" data-channel="0"/.exec(html)?.[1];
+    expect(served?.length).toBeGreaterThan(1000);
+    const toggle = page.getByRole("checkbox", { name: "Show Gate A" });
+    await toggle.uncheck();
+    await expect.poll(() => plot.locator("path[data-channel='0']").count()).toBe(0);
+    await toggle.check();
+    await expect.poll(() => plot.locator("path[data-channel='0']").getAttribute("d")).toBe(served);
   });
 
   it("a big capture is measured by the worker with its progress shown, and a broken one names its bad line", async () => {
