@@ -10,6 +10,7 @@ import { createDatabaseIfMissing, dropDatabase, startDatabase, withDatabase } fr
 import { startFakes } from "../fakes/index";
 import { appEnvironment, appUrl, fakeUrls, LOCAL_KEYS, testPorts } from "../fakes/local-config";
 import { buildApp, startApp } from "../fakes/app-process";
+import { failureLines, type VitestReport } from "./support/vitest-report";
 import { startWorker } from "../fakes/worker-process";
 
 // `npm test -- --e2e-only tests/e2e/x.test.ts …` skips the unit and integration suites and runs only those
@@ -127,30 +128,9 @@ async function runVitest(projects: string[], extraEnv: Record<string, string>, r
   if (!existsSync(report)) return { passed: 0, failed: 1, skipped: 0 };
   const json = JSON.parse(readFileSync(report, "utf8")) as VitestReport;
   const failed = json.numFailedTests + (code !== 0 && json.numFailedTests === 0 ? Math.max(1, json.numFailedTestSuites) : 0);
-  return { passed: json.numPassedTests, failed, skipped: json.numPendingTests + json.numTodoTests, failures: failureLines(json) };
+  return { passed: json.numPassedTests, failed, skipped: json.numPendingTests + json.numTodoTests, failures: failureLines(json, root) };
 }
 
-type VitestReport = {
-  numPassedTests: number;
-  numFailedTests: number;
-  numPendingTests: number;
-  numTodoTests: number;
-  numFailedTestSuites: number;
-  testResults?: { name: string; status: string; message?: string; assertionResults?: { fullName: string; status: string; failureMessages?: string[] }[] }[];
-};
-
-/** One line per failed test (file, name, the first line of its message), or per file that failed to load. */
-function failureLines(report: VitestReport): string[] {
-  const firstLine = (text: string | undefined) => (text ?? "").split("\n").find((l) => l.trim())?.trim().slice(0, 300) ?? "";
-  const lines: string[] = [];
-  for (const file of report.testResults ?? []) {
-    const where = path.relative(root, file.name);
-    const failedTests = (file.assertionResults ?? []).filter((a) => a.status === "failed");
-    for (const test of failedTests) lines.push(`${where} > ${test.fullName}: ${firstLine(test.failureMessages?.[0])}`);
-    if (file.status === "failed" && failedTests.length === 0) lines.push(`${where}: ${firstLine(file.message)}`);
-  }
-  return lines;
-}
 
 function ensureChromium() {
   if (existsSync("/usr/bin/chromium")) return;

@@ -155,19 +155,15 @@ export function sampleEvenly<T>(items: readonly T[], count: number): T[] {
  * separates two numbers by itself.
  */
 export function linePath(points: readonly { x: number; y: number }[]): string {
-  let path = "";
-  let lastX = 0;
-  let lastY = 0;
-  for (const p of points) {
-    if (!Number.isFinite(p.x) || !Number.isFinite(p.y)) continue;
-    const x = Math.round(p.x * 10);
-    const y = Math.round(p.y * 10);
-    if (!path) path = `M${tenths(x, false)} ${tenths(y, false)}l`;
-    else path += `${tenths(x - lastX, !path.endsWith("l"))}${tenths(y - lastY, true)}`;
-    lastX = x;
-    lastY = y;
-  }
-  return path.endsWith("l") ? path.slice(0, -1) : path;
+  const snapped = points.filter((p) => Number.isFinite(p.x) && Number.isFinite(p.y)).map((p) => ({ x: Math.round(p.x * 10), y: Math.round(p.y * 10) }));
+  const [first, ...rest] = snapped;
+  if (!first) return "";
+  const steps = rest.map((p, i) => {
+    const from = snapped[i]!;
+    return `${tenths(p.x - from.x, i > 0)}${tenths(p.y - from.y, true)}`;
+  });
+  const move = `M${tenths(first.x, false)} ${tenths(first.y, false)}`;
+  return steps.length ? `${move}l${steps.join("")}` : move;
 }
 
 /** A count of tenths as the shortest path number, with a space before it when it follows another and has no sign. */
